@@ -1,0 +1,13 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    include: ['test/**/*.test.ts'],
+    globalSetup: ['test/global-setup.ts'],
+    testTimeout: 30_000,
+    hookTimeout: 120_000,
+    // Two cores: browser and crash tests are heavy, keep the pool small.
+    maxWorkers: 2,
+    fileParallelism: true,
+  },
+});
