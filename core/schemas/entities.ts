@@ -6,7 +6,7 @@
 import { z } from 'zod';
 import { LimitMetricSchema } from './domain';
 import {
-  AreaInputSchema, CorrectionInputSchema, LimitSetInputSchema, MeterInputSchema, ReadingInputSchema,
+  AreaInputSchema, LimitSetInputSchema, MeterInputSchema, ReadingInputSchema,
   RoundInputSchema, SiteInputSchema, SkipInputSchema, SpotInputSchema,
 } from './domain';
 

@@ -1,0 +1,2 @@
+export * from './svg-sanitize';
+export * from './image-type';
