@@ -1,0 +1,4 @@
+export * from './facts';
+export * from './substances';
+export * from './templates';
+export * from './verdicts';
