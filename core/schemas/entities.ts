@@ -5,6 +5,8 @@
  */
 import { z } from 'zod';
 import { LimitMetricSchema } from './domain';
+import { EstimateResponseSchema } from './estimate';
+import { EstimateNoteSchema, HazardVerdictSchema } from './hazard';
 import {
   AreaInputSchema, LimitSetInputSchema, MeterInputSchema, ReadingInputSchema,
   RoundInputSchema, SiteInputSchema, SkipInputSchema, SpotInputSchema,
@@ -20,6 +22,7 @@ export const SpotSchema = SpotInputSchema.safeExtend({
   ...withId, ...timestamps,
   /** Set when the spot was retired: readings stay, the route skips it. */
   retiredAt: z.string().nullable(),
+  retiredReason: z.string().nullable(),
 }).meta({ id: 'Spot' });
 export const MeterSchema = MeterInputSchema.safeExtend({ ...withId, ...timestamps }).meta({ id: 'Meter' });
 
@@ -56,6 +59,12 @@ export const ReadingSchema = ReadingInputSchema.safeExtend({
   flags: z.array(z.object({ code: z.string(), message: z.string() })),
   meterCalibrationOverdue: z.boolean(),
   verdict: LimitVerdictSchema,
+  /** The charge estimate with the spot's model (null: no model, or none possible; see estimateNote). */
+  estimate: EstimateResponseSchema.nullable().optional(),
+  /** Why there is no estimate, or what the hazard checks assumed. */
+  estimateNote: EstimateNoteSchema.nullable().optional(),
+  /** Hazard verdicts for the spot's area (core/hazard), each with its source and caution. */
+  hazards: z.array(HazardVerdictSchema).optional(),
 }).meta({ id: 'Reading' });
 export type Reading = z.infer<typeof ReadingSchema>;
 

@@ -1,3 +1,4 @@
 export * from './common';
 export * from './domain';
 export * from './entities';
+export * from './api';
