@@ -47,7 +47,7 @@ function epa(): LimitTemplate {
     description: 'Field near ESDS items, isolated conductors and people, for parts withstanding 100 V HBM or more.',
     rules: [
       { metric: 'fieldVPerM', warn: FACTS.cdm50FieldPractice.value, alarm: FACTS.esdFieldLimit.value, source: `alarm: 125 V/inch, ${FACTS.esdFieldLimit.source}; warn: 50 V/inch, ${FACTS.cdm50FieldPractice.source}` },
-      { metric: 'surfaceVoltageV', warn: null, alarm: FACTS.isolatedConductorLimit.value, source: `isolated conductors below 35 V, ${FACTS.isolatedConductorLimit.source}` },
+      { metric: 'surfaceVoltageV', warn: null, alarm: FACTS.isolatedConductorLimit.value, source: `isolated conductors below 35 V, ${FACTS.isolatedConductorLimit.source}`, appliesTo: ['conductor'] },
       { metric: 'bodyVoltageV', warn: null, alarm: FACTS.s2020ScopeHbm.value, source: `100 V HBM programme scope, ${FACTS.s2020ScopeHbm.source}` },
     ],
   };
@@ -73,8 +73,8 @@ function hazardous(zone: GasZone, group: GasGroup): LimitTemplate {
     rules: [
       { metric: 'energyJ', warn: bandLow.v, alarm: rep.mieJ, source: `alarm: ${rep.source}; warn: ${bandLow.src}` },
       zone === 2
-        ? { metric: 'chargeC', warn: transfer.value, alarm: null, source: `transferred-charge limit ${group} ${transfer.value * 1e9} nC, ${transfer.source}; ${insulatorLevels.note}` }
-        : { metric: 'chargeC', warn: null, alarm: transfer.value, source: `transferred-charge limit ${group} ${transfer.value * 1e9} nC, ${transfer.source}` },
+        ? { metric: 'chargeC', warn: transfer.value, alarm: null, source: `transferred-charge limit ${group} ${transfer.value * 1e9} nC, ${transfer.source}; ${insulatorLevels.note}`, appliesTo: ['insulator'] }
+        : { metric: 'chargeC', warn: null, alarm: transfer.value, source: `transferred-charge limit ${group} ${transfer.value * 1e9} nC, ${transfer.source}`, appliesTo: ['insulator'] },
       zone === 2
         ? { metric: 'surfaceChargeDensityCPerM2', warn: FACTS.brushDischargeOnsetSurfaceChargeDensity.value, alarm: null, source: `brush-discharge onset, ${FACTS.brushDischargeOnsetSurfaceChargeDensity.source}; ${insulatorLevels.note}` }
         : { metric: 'surfaceChargeDensityCPerM2', warn: null, alarm: FACTS.brushDischargeOnsetSurfaceChargeDensity.value, source: `brush-discharge onset, ${FACTS.brushDischargeOnsetSurfaceChargeDensity.source}; brush discharges (up to about 4 mJ) ignite most gases and vapours, ${FACTS.brushDischargeEnergy.source}` },
@@ -92,7 +92,7 @@ function dust(zone: DustZone): LimitTemplate {
     description: 'Dust clouds: fine dusts from about 1 mJ. Brush discharges do not ignite dust clouds; propagating brush discharges do.',
     rules: [
       { metric: 'energyJ', warn: null, alarm: mie, source: `fine dusts 1-50 mJ (lower bound), ${FACTS.fineDustMie.source}` },
-      { metric: 'chargeC', warn: null, alarm: FACTS.transferChargeIII.value, source: `transferred-charge limit group III 200 nC, ${FACTS.transferChargeIII.source}` },
+      { metric: 'chargeC', warn: null, alarm: FACTS.transferChargeIII.value, source: `transferred-charge limit group III 200 nC, ${FACTS.transferChargeIII.source}`, appliesTo: ['insulator'] },
       { metric: 'surfaceChargeDensityCPerM2', warn: FACTS.brushDischargeOnsetSurfaceChargeDensity.value, alarm: FACTS.propagatingBrushSurfaceChargeDensity.value, source: `warn: brush-discharge onset, ${FACTS.brushDischargeOnsetSurfaceChargeDensity.source}; alarm: propagating brush 250 uC/m^2 (thin layer on a conductor), ${FACTS.propagatingBrushSurfaceChargeDensity.source}` },
       { metric: 'bodyVoltageV', warn: FACTS.personSparkVoltage.value, alarm: vAlarm, source: `alarm: arithmetic V = sqrt(2 x 1 mJ / 200 pF) (${FACTS.capacitancePersonDesign.source}; ${FACTS.fineDustMie.source}); warn: sparks from a person from about 1 kV, ${FACTS.personSparkVoltage.source}` },
     ],

@@ -12,6 +12,21 @@ export interface LimitRule {
   alarm: number | null;
   /** Where the numbers come from: standard and clause, 'common practice', 'from memory', or the site's own rule. */
   source: string;
+  /**
+   * The material classes of spot the rule is meant for (e.g. the 35 V rule of an ESD
+   * programme is for isolated conductors only). Absent or empty: every spot.
+   */
+  appliesTo?: readonly MaterialClass[] | undefined;
+}
+
+/** What a spot's object is made of, electrically (see core/schemas/domain MATERIAL_CLASSES). */
+export type MaterialClass = 'conductor' | 'insulator' | 'person' | 'unknown';
+
+/** True when the rule is meant for a spot of this material class. Unknown material: every rule applies. */
+export function ruleApplies(rule: LimitRule, materialClass: string | null | undefined): boolean {
+  if (!rule.appliesTo || rule.appliesTo.length === 0) return true;
+  if (!materialClass || materialClass === 'unknown') return true;
+  return (rule.appliesTo as readonly string[]).includes(materialClass);
 }
 
 export interface MetricCheck {
@@ -74,7 +89,9 @@ export function checkMetric(rule: LimitRule, value: number): MetricCheck {
 }
 
 /**
- * Evaluates every rule whose metric has a finite value. The overall level is the
+ * Evaluates every rule whose metric has a finite value and that is meant for the
+ * spot's material class (a spot of unknown material is judged by every rule, the
+ * cautious choice). The overall level is the
  * worst; among equal levels the highest ratio to the alarm level decides.
  * Metrics without a value (e.g. charge when no model applies) are skipped, and a
  * set with no applicable rule gives 'ok' with a reason that says nothing was judged.
@@ -82,9 +99,11 @@ export function checkMetric(rule: LimitRule, value: number): MetricCheck {
 export function evaluateLimits(
   rules: readonly LimitRule[],
   values: Partial<Record<LimitMetric, number | null | undefined>>,
+  opts: { materialClass?: string | null } = {},
 ): LimitVerdict {
   const checks: MetricCheck[] = [];
   for (const rule of rules) {
+    if (!ruleApplies(rule, opts.materialClass)) continue;
     const value = values[rule.metric];
     if (value === null || value === undefined || !Number.isFinite(value)) continue;
     checks.push(checkMetric(rule, value));

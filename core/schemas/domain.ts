@@ -39,6 +39,8 @@ export const LimitRuleSchema = z.object({
   warn: limitLevel('warn level'),
   alarm: limitLevel('alarm level'),
   source: requiredText('source', 300),
+  /** Material classes the rule is meant for; absent or empty: every spot. */
+  appliesTo: z.array(z.enum(['conductor', 'insulator', 'person', 'unknown'], { error: 'appliesTo holds conductor, insulator, person or unknown' })).max(4).optional(),
 }).superRefine((r, ctx) => {
   if (r.warn === null && r.alarm === null) ctx.addIssue({ code: 'custom', path: ['alarm'], message: 'give a warn level, an alarm level or both' });
   if (r.warn !== null && r.alarm !== null && r.warn > r.alarm) ctx.addIssue({ code: 'custom', path: ['warn'], message: 'warn level must not be above the alarm level' });

@@ -52,7 +52,7 @@ export const LIMIT_SETS: Record<'hall' | 'powder' | 'epa' | 'general', { name: s
     description: 'Field at ESDS items and isolated conductors, for parts withstanding 100 V HBM or more.',
     rules: [
       { metric: 'fieldVPerM', warn: 2500, alarm: 4921, source: 'alarm: 125 V/inch, ANSI/ESD S20.20-2021 8.3.1; warn: about half of it, site practice' },
-      { metric: 'surfaceVoltageV', warn: null, alarm: 35, source: 'isolated conductors below 35 V, ANSI/ESD S20.20-2021, scope' },
+      { metric: 'surfaceVoltageV', warn: null, alarm: 35, source: 'isolated conductors below 35 V, ANSI/ESD S20.20-2021, scope', appliesTo: ['conductor'] },
       { metric: 'bodyVoltageV', warn: null, alarm: 100, source: '100 V HBM programme scope, ANSI/ESD S20.20-2021, scope' },
     ],
   },

@@ -63,3 +63,18 @@ describe('evaluateLimits', () => {
     expect(worseLevel('alarm', 'warn')).toBe('alarm');
   });
 });
+
+describe('rules meant for one material class', () => {
+  // ANSI/ESD S20.20-2021 scope: the 35 V level is for isolated conductors, not insulators.
+  const conductorOnly: LimitRule = { ...volts, appliesTo: ['conductor'] };
+  it('applies to conductors and to spots of unknown material (cautious)', () => {
+    expect(evaluateLimits([conductorOnly], { surfaceVoltageV: 50 }, { materialClass: 'conductor' }).level).toBe('alarm');
+    expect(evaluateLimits([conductorOnly], { surfaceVoltageV: 50 }, { materialClass: 'unknown' }).level).toBe('alarm');
+    expect(evaluateLimits([conductorOnly], { surfaceVoltageV: 50 }).level).toBe('alarm');
+  });
+  it('is skipped for an insulator', () => {
+    const v = evaluateLimits([field, conductorOnly], { fieldVPerM: 100, surfaceVoltageV: 50 }, { materialClass: 'insulator' });
+    expect(v.level).toBe('ok');
+    expect(v.checks.map((c) => c.metric)).toEqual(['fieldVPerM']);
+  });
+});

@@ -1,0 +1,26 @@
+/** App-wide context: the chosen site and its set-up, shared by the top bar and the pages. */
+import type { SetupBundle } from '../core/schemas';
+import { loadSetup, type Loaded } from './data';
+import { prefs } from './state';
+
+const listeners = new Set<() => void>();
+let siteName: string | null = null;
+
+export function onSiteChange(fn: () => void): () => void { listeners.add(fn); return () => listeners.delete(fn); }
+
+export function currentSiteName(): string | null { return siteName; }
+
+export function setSite(id: string | null, name: string | null): void {
+  prefs.siteId = id;
+  siteName = name;
+  for (const l of [...listeners]) l();
+}
+
+/** The current site's set-up (cache first when asked: the round screen must open offline). */
+export async function currentSetup(opts: { preferCache?: boolean } = {}): Promise<Loaded<SetupBundle> | null> {
+  const id = prefs.siteId;
+  if (!id) return null;
+  const l = await loadSetup(id, opts);
+  if (siteName !== l.data.site.name) setSite(id, l.data.site.name);
+  return l;
+}

@@ -1,0 +1,40 @@
+/**
+ * Boot: top bar, routes, outbox sync, service worker. Pages live in pages/;
+ * the offline machinery in offline/.
+ */
+import { route, startRouter } from './router';
+import { mountTopbar } from './ui/topbar';
+import { startSync } from './offline/sync';
+import { homePage } from './pages/home';
+import { roundStartPage } from './pages/round-start';
+import { roundPage } from './pages/round';
+import { summaryPage } from './pages/summary';
+import { spotPage } from './pages/spot';
+import { setupPage } from './pages/setup/index';
+import { outboxPage } from './pages/outbox';
+import { sweepPage } from './pages/sweep';
+import { modelsPage } from './pages/models';
+
+route('/', homePage);
+route('/round/new', roundStartPage);
+route('/round/:id', roundPage);
+route('/round/:id/summary', summaryPage);
+route('/spot/:id', spotPage);
+route('/setup', setupPage);
+route('/setup/:section', setupPage);
+route('/outbox', outboxPage);
+route('/sweep/:spotId', sweepPage);
+route('/models', modelsPage);
+
+mountTopbar(document.getElementById('topbar')!);
+startRouter();
+startSync();
+
+// Not under the Vite dev server (import.meta.hot): a worker there would cache dev modules.
+if ('serviceWorker' in navigator && !import.meta.hot) {
+  // The shell (HTML, JS, CSS, icons) is cached by the worker; /api never is:
+  // records live in IndexedDB and API calls always go to the network.
+  window.addEventListener('load', () => {
+    navigator.serviceWorker.register('/sw.js', { scope: '/' }).catch((e) => console.warn('service worker not registered', e));
+  });
+}
