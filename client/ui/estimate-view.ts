@@ -58,9 +58,10 @@ const PREFIXES: [number, string][] = [[1e9, 'G'], [1e6, 'M'], [1e3, 'k'], [1, ''
 export function fmtWithInterval(value: number, interval: readonly [number, number] | null, unit: string): string {
   const abs = Math.abs(value);
   const [f, p] = PREFIXES.find(([x]) => abs >= x * 0.9995) ?? PREFIXES[PREFIXES.length - 1]!;
-  const v = `${formatSignificant(value / f)} ${p}${unit}`;
+  // No-break spaces keep a number with its unit (and the interval's ends together) when a line wraps.
+  const v = `${formatSignificant(value / f)}\u00a0${p}${unit}`;
   if (!interval) return v;
-  return `${v} (${formatSignificant(interval[0] / f)} … ${formatSignificant(interval[1] / f)} ${p}${unit})`;
+  return `${v} (${formatSignificant(interval[0] / f)}\u00a0… ${formatSignificant(interval[1] / f)}\u00a0${p}${unit})`;
 }
 
 /** The quantity the headline shows: the charge where the model gives one, else the first defined. */
@@ -101,10 +102,13 @@ export function applicable(hazards: readonly Verdict[] | undefined): Verdict[] {
   return (hazards ?? []).filter((v) => v.level !== 'not-applicable').sort((a, b) => RANK[b.level] - RANK[a.level]);
 }
 
+/** A formatted quantity with its inner space made no-break. */
+const nb = (s: string): string => s.replace(' ', '\u00a0');
+
 function compared(v: Verdict): string | null {
   if (!v.compared) return null;
   const unit = v.compared.unit.replace('^2', '²');
-  return `${formatSi(v.compared.value, unit)} vs ${formatSi(v.compared.threshold, unit)}`;
+  return `${nb(formatSi(v.compared.value, unit))} vs ${nb(formatSi(v.compared.threshold, unit))}`;
 }
 
 function levelChip(level: Verdict['level']): HTMLElement {

@@ -16,7 +16,7 @@ export interface LimitRule {
    * The material classes of spot the rule is meant for (e.g. the 35 V rule of an ESD
    * programme is for isolated conductors only). Absent or empty: every spot.
    */
-  appliesTo?: readonly MaterialClass[] | undefined;
+  appliesTo?: MaterialClass[] | undefined;
 }
 
 /** What a spot's object is made of, electrically (see core/schemas/domain MATERIAL_CLASSES). */

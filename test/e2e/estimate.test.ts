@@ -78,7 +78,7 @@ describe('charge estimates and sweeps on the tablet (issue 3)', () => {
     await tapDigits(page, '25');
     await expect.poll(text(page.locator('[data-testid=live-field]')), T).toContain('−25.0 kV/m');
     const headline = page.locator('[data-testid=estimate-headline]');
-    await expect.poll(text(headline), T).toMatch(/^Charge −[\d.]+ [nµ]C \(−[\d.]+ … −[\d.]+ [nµ]C\), line \/ cylinder model$/);
+    await expect.poll(text(headline), T).toMatch(/^Charge −[\d.]+\s[nµ]C \(−[\d.]+\s… −[\d.]+\s[nµ]C\), line \/ cylinder model$/);
     // The hazard verdict: colour AND word, with the numbers compared.
     const hazard = page.locator('[data-testid=estimate-hazard]');
     await expect.poll(attr(hazard, 'data-level'), T).toMatch(/^(ok|warn|alarm)$/);
@@ -114,7 +114,7 @@ describe('charge estimates and sweeps on the tablet (issue 3)', () => {
     // The spot screen shows the same estimate beside the reading.
     await page.goto(`/#/spot/${roll.id}`);
     const card = page.locator(`.rev-card[data-reading-id="${r.id}"] .rev-estimate [data-testid=estimate-headline]`);
-    await expect.poll(text(card), T).toMatch(/^Charge −[\d.]+ [nµ]C \(−[\d.]+ … −[\d.]+ [nµ]C\), line \/ cylinder model$/);
+    await expect.poll(text(card), T).toMatch(/^Charge −[\d.]+\s[nµ]C \(−[\d.]+\s… −[\d.]+\s[nµ]C\), line \/ cylinder model$/);
     await shots('estimate-spot');
     expect(tab.errors).toEqual([]);
   }, 120_000);
@@ -145,6 +145,7 @@ describe('charge estimates and sweeps on the tablet (issue 3)', () => {
     await expect.poll(count(page.locator('[data-testid=sweep-ranking] tbody tr')), T).toBeGreaterThan(2);
     await expect.poll(count(page.locator('[data-testid=sweep-residuals] tbody tr')), T).toBe(4);
     await shots('sweep');
+    await page.screenshot({ path: 'test-artifacts/sweep-full-768x1024.png', fullPage: true });
 
     // The round opened in the first test is open on this tablet: save the four readings to it.
     await page.locator('[data-testid=sweep-save]').tap();
