@@ -62,3 +62,38 @@ export function isRetryable(e: unknown): boolean {
   if (e instanceof ApiError) return e.status >= 500 || e.status === 429 || e.status === 408;
   return false;
 }
+
+/**
+ * Sends a raw body (an uploaded plan image) with its own Content-Type; the answer
+ * is JSON like every other. Errors become ApiError / NetworkError as in api().
+ */
+export async function apiUpload<T>(method: 'PUT' | 'POST', path: string, body: Blob, contentType: string): Promise<T> {
+  const ctl = new AbortController();
+  const timer = setTimeout(() => ctl.abort(), 60_000);
+  let res: Response;
+  try {
+    res = await fetch(path, { method, headers: { 'content-type': contentType, accept: 'application/json' }, body, cache: 'no-store', signal: ctl.signal });
+  } catch (e) {
+    throw new NetworkError(ctl.signal.aborted ? 'the server did not answer in time' : `no connection (${(e as Error).message})`);
+  } finally {
+    clearTimeout(timer);
+  }
+  const text = await res.text().catch(() => '');
+  let data: unknown = null;
+  if (text) { try { data = JSON.parse(text); } catch { data = null; } }
+  if (!res.ok) {
+    const env = (data as { error?: { code?: string; message?: string; fields?: FieldError[] } } | null)?.error;
+    throw new ApiError(res.status, env?.code ?? `http-${res.status}`, env?.message ?? `${res.status} ${res.statusText}`, Array.isArray(env?.fields) ? env.fields : []);
+  }
+  return data as T;
+}
+
+/** A short sentence for an error shown on screen: the server's message and its field messages. */
+export function errorText(e: unknown): string {
+  if (e instanceof ApiError) {
+    const f = e.fields.filter((x) => x.message).map((x) => (x.path && x.path !== '(body)' ? `${x.path}: ${x.message}` : x.message));
+    return f.length ? `${e.message} (${f.join('; ')})` : e.message;
+  }
+  if (e instanceof NetworkError) return `No connection to the server: ${e.message}`;
+  return e instanceof Error ? e.message : String(e);
+}

@@ -196,6 +196,10 @@ async function sendOne(it: OutboxItem): Promise<void> {
       case 'finish':
         await api<RoundSummary>('POST', it.path, it.body);
         break;
+      case 'follow-up-close':
+        // Queued behind its verifying reading, so the reading is on the server first.
+        await api('POST', it.path, it.body);
+        break;
       case 'correction': {
         const r = await api<Reading>('POST', it.path, it.body);
         await removeAcked([it.key], ['readings'], (t) => { t.objectStore('readings').put({ ...r, origin: 'server' }); });
@@ -222,6 +226,10 @@ async function sendOne(it: OutboxItem): Promise<void> {
 async function alreadyApplied(it: OutboxItem): Promise<boolean> {
   try {
     if (it.kind === 'finish') return true; // finishing a finished round changes nothing
+    if (it.kind === 'follow-up-close') {
+      const r = await api<{ status?: string; followUp?: { status?: string } }>('GET', `/api/follow-ups/${encodeURIComponent(it.entityId)}`);
+      return (r.followUp?.status ?? r.status) === 'closed';
+    }
     if (it.kind === 'correction') {
       await api('GET', `/api/readings/${encodeURIComponent(it.entityId)}`);
       return true;

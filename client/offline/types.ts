@@ -8,7 +8,7 @@ export type LocalRound = Round & { origin: 'local' | 'server'; meterId: string |
 
 export type LocalSkip = SkipInput & { origin: 'local' | 'server' };
 
-export type OutboxKind = 'round' | 'reading' | 'skip' | 'finish' | 'correction' | 'tombstone';
+export type OutboxKind = 'round' | 'reading' | 'skip' | 'finish' | 'correction' | 'tombstone' | 'follow-up-close';
 
 /**
  * pending: saved on this tablet, waiting to be sent; sending: in flight;
@@ -23,7 +23,7 @@ export interface OutboxItem {
   /** Unique per write: 'reading:<id>', 'round:<id>', 'finish:<roundId>', 'tombstone:<readingId>' ... */
   key: string;
   kind: OutboxKind;
-  /** The id of the record the write is about (reading id, round id, skip id). */
+  /** The id of the record the write is about (reading id, round id, skip id, follow-up id). */
   entityId: string;
   roundId: string | null;
   spotId: string | null;

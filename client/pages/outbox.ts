@@ -10,7 +10,7 @@ import { sendNow, syncStatus } from '../offline/sync';
 import type { OutboxItem } from '../offline/types';
 
 const KIND_LABEL: Record<OutboxItem['kind'], string> = {
-  round: 'Round start', reading: 'Reading', skip: 'Skipped spot', finish: 'Round finish', correction: 'Correction', tombstone: 'Deletion',
+  round: 'Round start', reading: 'Reading', skip: 'Skipped spot', finish: 'Round finish', correction: 'Correction', tombstone: 'Deletion', 'follow-up-close': 'Follow-up closed',
 };
 
 function describe(i: OutboxItem): string {
@@ -20,6 +20,7 @@ function describe(i: OutboxItem): string {
   }
   if (i.kind === 'round') return `by ${String(b.surveyor)}`;
   if (i.kind === 'skip' || i.kind === 'tombstone') return String(b.reason ?? '');
+  if (i.kind === 'follow-up-close') return b.verifyingReadingId ? 'with a verifying reading' : String(b.reason ?? '');
   return '';
 }
 

@@ -18,6 +18,7 @@ import { areaOf, revisionChains } from '../round/logic';
 import { newId } from '../../core/ids/uuidv7';
 import { AREA_KIND_LABEL, type SetupBundle } from '../../core/schemas';
 import type { LocalReading } from '../offline/types';
+import { spotFollowUpsSection, spotTrendSection } from './spot-trend';
 
 const CORRECTION_REASONS = ['Wrong value typed', 'Wrong polarity', 'Wrong unit', 'Wrong distance', 'Wrong spot'];
 
@@ -35,6 +36,11 @@ export async function spotPage(root: HTMLElement, params: Record<string, string>
   const area = areaOf(bundle, spot);
   const listEl = h('div', { class: 'revisions', dataset: { testid: 'spot-readings' } });
   const sourceEl = h('p', { class: 'muted' });
+  const surveyors = new Map<string, string>();
+  let readings: LocalReading[] = [];
+  // Issue 4: follow-ups (with history) and the trend, above the reading history.
+  const followUps = spotFollowUpsSection(bundle, spot, () => readings);
+  const trend = spotTrendSection(spot);
   replace(body,
     h('div', { class: 'row between wrap' },
       h('div', null,
@@ -46,11 +52,11 @@ export async function spotPage(root: HTMLElement, params: Record<string, string>
         h('a', { class: 'btn', href: `#/sweep/${spot.id}`, dataset: { testid: 'spot-sweep' } }, 'Sweep (several distances)'),
         h('a', { class: 'btn no-print', href: '#/' }, 'Home'))),
     spot.notes ? h('p', { class: 'spot-notes' }, spot.notes) : null,
+    followUps.el,
+    trend.el,
+    h('h2', { class: 'section-title' }, 'Readings and corrections'),
     sourceEl,
     listEl);
-
-  const surveyors = new Map<string, string>();
-  let readings: LocalReading[] = [];
 
   const load = async () => {
     const r = await loadSpotHistory(spotId);
@@ -135,11 +141,12 @@ export async function spotPage(root: HTMLElement, params: Record<string, string>
   }
 
   await load();
+  void followUps.refresh();
   let t: ReturnType<typeof setTimeout> | null = null;
   const off = onOutboxChange(() => {
     if (!t) t = setTimeout(async () => { t = null; readings = await readingsOfSpot(spotId); render(); }, 200);
   });
-  return () => { off(); if (t) clearTimeout(t); };
+  return () => { off(); if (t) clearTimeout(t); followUps.dispose(); trend.dispose(); };
 }
 
 function revisionRow(r: LocalReading, bundle: SetupBundle, surveyors: Map<string, string>, isHead: boolean, supersededReason: string | null = null): HTMLElement {

@@ -262,7 +262,7 @@ export async function sweepPage(root: HTMLElement, params: Record<string, string
           h('td', null, f.deltaAicc === null ? '—' : formatSignificant(f.deltaAicc, 2)),
           h('td', null, `${formatSignificant(f.rmsLog * 100, 2)} %`),
           h('td', null, `${AMPLITUDE[f.amplitudeName]?.label ?? f.amplitudeName} ${fmtWithInterval(f.amplitude, null, AMPLITUDE[f.amplitudeName]?.unit ?? '')}${f.offsetM !== null && f.offsetFitted ? `, depth ${formatSignificant(f.offsetM / dF)} ${dUnit}` : ''}`))))),
-      h('p', { class: 'muted' }, 'ΔAICc below 2: the data cannot tell the models apart. rms scatter: typical misfit of the readings (log scale).'),
+      h('p', { class: 'muted' }, `Δ${r.rankedBy === 'aicc' ? 'AICc' : 'AIC'} below 2: the data cannot tell the models apart. rms scatter: typical misfit of the readings (log scale).`),
       h('h3', null, 'Residuals of the chosen model'),
       h('table', { class: 'table sweep-table', dataset: { testid: 'sweep-residuals' } },
         h('thead', null, h('tr', null, h('th', null, `distance (${dUnit})`), h('th', null, `reading (${fUnit})`), h('th', null, `fitted (${fUnit})`), h('th', null, 'residual'))),

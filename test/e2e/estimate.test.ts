@@ -170,6 +170,18 @@ describe('charge estimates and sweeps on the tablet (issue 3)', () => {
     await expect.poll(count(page.locator('.model-card')), T).toBe(12);
     await expect.poll(text(page.locator('.models-page')), T).toContain('web over a roller reads low');
     await shots('models');
+
+    // The area form's substance picker: the substance table with MIE and source.
+    await page.goto('/#/setup/areas');
+    await page.locator('.list-row', { hasText: 'Hall C' }).locator('button', { hasText: 'Edit' }).tap();
+    const picker = page.locator('select[data-path="substanceId"]');
+    await picker.waitFor();
+    const options = await picker.locator('option').allTextContents();
+    expect(options.length).toBeGreaterThan(20);
+    // FACTS.md: MIE propane 0.25 mJ, NFPA 77 (2000) Table B.1; minimum ignition charge 70 nC (BGR 132 Annex G Table 14)
+    expect(options.find((o) => o.startsWith('Propane'))).toMatch(/MIE 0\.25 mJ \(NFPA 77 \(2000\) Table B\.1\).*ignition charge 70 nC/);
+    await picker.scrollIntoViewIfNeeded();
+    await shots('setup-area-substance');
     expect(tab.errors).toEqual([]);
   }, 60_000);
 });

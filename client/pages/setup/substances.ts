@@ -3,7 +3,6 @@
  * minimum ignition charge, each with its source) as select options.
  */
 import { SUBSTANCES } from '../../../core/hazard/substances';
-import { formatSi } from '../../../core/units/format';
 
 /** Options for the area's substance: none, every tabled substance, and an unknown current id kept as it is. */
 export function substanceOptions(current: string | null | undefined): { value: string; label: string }[] {
@@ -11,7 +10,7 @@ export function substanceOptions(current: string | null | undefined): { value: s
     { value: '', label: 'none (judge by the gas group; IIC when no group)' },
     ...SUBSTANCES.map((s) => ({
       value: s.id,
-      label: `${s.name} · MIE ${formatSi(s.mieJ, 'J')} (${s.mieSource})${s.minIgnitionChargeC !== null ? ` · ignition charge ${formatSi(s.minIgnitionChargeC, 'C')} (PTB data, BGR 132)` : ''} · ${s.gasGroup}`,
+      label: `${s.name} · MIE ${+(s.mieJ * 1e3).toPrecision(3)} mJ (${s.mieSource})${s.minIgnitionChargeC !== null ? ` · min. ignition charge ${+(s.minIgnitionChargeC * 1e9).toPrecision(3)} nC (PTB data, BGR 132)` : ''} · ${s.gasGroup}`,
     })),
   ];
   if (current && !SUBSTANCES.some((s) => s.id === current)) opts.push({ value: current, label: `${current} (not in the table: the checks use the gas group)` });
