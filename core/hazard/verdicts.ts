@@ -26,6 +26,8 @@ export interface HazardArea {
   substanceId?: string | null;
   /** An explicit MIE for the atmosphere, J (overrides substance and group). */
   mieJ?: number | null;
+  /** The site's own minimum ignition energy of the dust, J (dust zones); else the fine-dust lower bound. */
+  dustMieJ?: number | null;
 }
 
 export type ObjectKind = 'conductor' | 'insulator' | 'person' | 'unknown';
@@ -92,6 +94,9 @@ export function resolveAtmosphere(area: HazardArea): Atmosphere {
     const rep = representativeMie(area.gasGroup);
     mieJ = rep.mieJ; mieLabel = `the MIE of ${rep.substance} (representative of ${area.gasGroup})`; mieSource = rep.source; assumption = `a group ${area.gasGroup} gas represented by ${rep.substance}`;
     group = area.gasGroup;
+  } else if (dust && area.dustMieJ != null && area.dustMieJ > 0) {
+    mieJ = area.dustMieJ; mieLabel = 'the dust MIE given for the area'; mieSource = "site's value"; assumption = `a cloud of the site's dust (MIE ${si(mieJ, 'J')} as given), no gas`;
+    group = 'III';
   } else if (dust) {
     mieJ = FACTS.fineDustMie.value; mieLabel = 'the lower bound for fine dust clouds'; mieSource = FACTS.fineDustMie.source; assumption = 'a fine dust cloud (MIE from 1 mJ), no gas';
     group = 'III';
@@ -103,7 +108,7 @@ export function resolveAtmosphere(area: HazardArea): Atmosphere {
   }
   if (dust && gas) {
     // Hybrid: the more sensitive atmosphere decides energy; transfer limit of the gas group.
-    mieJ = Math.min(mieJ, FACTS.fineDustMie.value);
+    mieJ = Math.min(mieJ, area.dustMieJ != null && area.dustMieJ > 0 ? area.dustMieJ : FACTS.fineDustMie.value);
     assumption += ' with combustible dust present';
   }
   return {

@@ -109,10 +109,9 @@ export function estimateRequestFor(input: ReadingEstimateInput, spot: SpotEstima
 }
 
 /**
- * The area as core/hazard sees it: dust from the zone (20, 21, 22). The site's dust MIE
- * (area.dustMieJ) is NOT passed as the atmosphere's MIE: core/hazard reads an explicit
- * MIE as a gas (a hybrid mixture, judged by a gas group), so dust zones are judged with
- * the fine-dust lower bound of 1 mJ (FACTS.md), which is the conservative choice.
+ * The area as core/hazard sees it: dust from the zone (20, 21, 22); the site's dust MIE
+ * (area.dustMieJ) when it gave one, else core/hazard uses the fine-dust lower bound of
+ * 1 mJ (FACTS.md), the cautious choice.
  */
 export function hazardAreaOf(area: AreaHazardContext): HazardArea {
   const dust = area.zone === 20 || area.zone === 21 || area.zone === 22;
@@ -123,6 +122,7 @@ export function hazardAreaOf(area: AreaHazardContext): HazardArea {
     dust,
     substanceId: area.substanceId ?? null,
     mieJ: null,
+    dustMieJ: area.dustMieJ ?? null,
   };
 }
 

@@ -138,3 +138,19 @@ describe('shocks to people (TRBS 2131 / TRGS 727 Annex D)', () => {
     }
   });
 });
+
+describe('dust zones with the site\'s own dust MIE', () => {
+  // W = C V^2 / 2 = 100 pF x (5 kV)^2 / 2 = 1.25 mJ (arithmetic); the fine-dust lower bound is
+  // 1 mJ (Wikipedia "Static electricity", energies involved), the site's dust here 30 mJ.
+  const estimate = { energyJ: 1.25e-3, potentialV: 5000, capacitanceF: 100e-12, chargeC: 5e-7, interval: null };
+  it('uses the fine-dust lower bound when the site gave none', () => {
+    const v = hazardVerdicts({ area: { kind: 'hazardous', zone: 22 }, objectKind: 'conductor', estimate });
+    expect(v.find((x) => x.check === 'spark-energy')?.level).toBe('alarm');
+  });
+  it('uses the site\'s dust MIE when given', () => {
+    const v = hazardVerdicts({ area: { kind: 'hazardous', zone: 22, dustMieJ: 30e-3 }, objectKind: 'conductor', estimate });
+    const spark = v.find((x) => x.check === 'spark-energy');
+    expect(spark?.level).toBe('ok');
+    expect(spark?.compared?.threshold).toBe(30e-3);
+  });
+});

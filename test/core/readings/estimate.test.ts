@@ -153,14 +153,18 @@ describe('bad set-up never throws', () => {
 });
 
 describe('areas', () => {
-  it('a dust zone judges spark energy against the fine-dust lower bound (conservative)', () => {
+  it('a dust zone judges spark energy against the fine-dust lower bound (conservative) unless the site gave its dust MIE', () => {
     const drum = { model: 'conductor' as const, geometry: { capacitanceF: 100e-12 }, materialClass: 'conductor' };
     // 100 pF at 5 kV: W = C V^2 / 2 = 1.25 mJ; fine dusts 1-50 mJ (FACTS.md: Wikipedia "Static electricity", energies involved)
-    const d = deriveReading(reading({ value: 5, unit: 'kV', polarity: '+' }), meter, [], { spot: drum, area: { kind: 'hazardous', zone: 21, gasGroup: null, substanceId: null, dustMieJ: 5e-3 } });
+    const d = deriveReading(reading({ value: 5, unit: 'kV', polarity: '+' }), meter, [], { spot: drum, area: { kind: 'hazardous', zone: 21, gasGroup: null, substanceId: null, dustMieJ: null } });
     const spark = d.hazards.find((v) => v.check === 'spark-energy')!;
     expect(spark.compared?.threshold).toBeCloseTo(1e-3, 15);
     expect(spark.compared?.value).toBeCloseTo(1.25e-3, 12);
     expect(spark.level).toBe('alarm');
+    const own = deriveReading(reading({ value: 5, unit: 'kV', polarity: '+' }), meter, [], { spot: drum, area: { kind: 'hazardous', zone: 21, gasGroup: null, substanceId: null, dustMieJ: 5e-3 } });
+    const ownSpark = own.hazards.find((v) => v.check === 'spark-energy')!;
+    expect(ownSpark.compared?.threshold).toBeCloseTo(5e-3, 15);
+    expect(ownSpark.level).toBe('ok');
   });
   it('a named substance gives the minimum ignition charge check (BGR 132 Annex G Table 14)', () => {
     const d = deriveReading(reading({ value: 0.2 }), meter, [], { spot: roll, area: { ...zone1IIA, substanceId: 'propane' } });
