@@ -23,8 +23,11 @@ export async function roundStartPage(root: HTMLElement): Promise<() => void> {
   const siteId = bundle.site.id;
 
   let surveyor = prefs.surveyor ?? '';
-  let meterId = prefs.meterFor(siteId) ?? bundle.meters[0]?.id ?? null;
-  if (meterId && !bundle.meters.some((m) => m.id === meterId)) meterId = bundle.meters[0]?.id ?? null;
+  // Default: the meter used last here, else the first one still in calibration.
+  const nowIso = new Date().toISOString();
+  const firstGood = (bundle.meters.find((m) => !isCalibrationOverdue(m.calibrationDue, nowIso)) ?? bundle.meters[0])?.id ?? null;
+  let meterId = prefs.meterFor(siteId) ?? firstGood;
+  if (meterId && !bundle.meters.some((m) => m.id === meterId)) meterId = firstGood;
   const vals: Record<'rh' | 'temp', string> = { rh: '', temp: '' };
   let tempNegative = false;
   let editing: 'rh' | 'temp' = 'rh';

@@ -23,6 +23,7 @@ import { isCalibrationOverdue } from '../../core/readings/derive';
 import { AREA_KIND_LABEL, type Spot } from '../../core/schemas';
 import type { LocalReading, LocalRound, LocalSkip } from '../offline/types';
 import type { ReadingUnit } from '../../core/units';
+import { followUpBanner } from '../round/follow-up-banner';
 
 const SKIP_REASONS = [
   'No access (blocked, locked or in use)',
@@ -65,6 +66,14 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
   let meterId: string | null = theRound.meterId ?? prefs.meterFor(bundle.site.id) ?? bundle.meters[0]?.id ?? null;
   const posKey = `chargewalk.roundpos.${roundId}`;
   let index = Math.min(route.length - 1, Math.max(0, Number(localStorage.getItem(posKey) ?? 0) || 0));
+  // '#/round/<id>?spot=<spotId>' (a scanned label) opens that spot.
+  const wanted = new URLSearchParams(location.hash.split('?')[1] ?? '').get('spot');
+  let wantedMissing = false;
+  if (wanted) {
+    const i = route.findIndex((s) => s.id === wanted);
+    if (i >= 0) index = i; else wantedMissing = true;
+    history.replaceState(null, '', `#/round/${roundId}`); // a reload stays on the spot walked to since
+  }
   let readings: LocalReading[] = await readingsOfRound(roundId);
   let skips: LocalSkip[] = await skipsOfRound(roundId);
   let spotHistory: LocalReading[] = [];
@@ -90,6 +99,7 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
   const nextBtn = h('button', { type: 'button', class: 'btn btn-nav', dataset: { testid: 'next' }, onclick: () => go(index + 1) }, 'Next ▶');
   const skipBtn = h('button', { type: 'button', class: 'btn btn-skip', dataset: { testid: 'skip' }, onclick: () => void skip() }, 'Skip spot');
 
+  const fuBanner = followUpBanner(bundle.site.id, (spotId) => [...readings, ...spotHistory].filter((r) => r.spotId === spotId));
   const entry = entryPanel({
     bundle, spot, meterId: () => meterId,
     defaults: { unit: defaultUnit(), polarity: '+', distance: spot().defaultDistance, zeroed: true, side: null, note: '', value: '' },
@@ -101,7 +111,7 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
     h('div', { class: 'round-body' },
       routeEl,
       h('section', { class: 'entry', 'aria-label': 'Reading entry' },
-        h('div', { class: 'e-head' }, spotHead),
+        h('div', { class: 'e-head' }, spotHead, fuBanner.el),
         h('div', { class: 'e-hist' }, spotReadingsEl),
         h('div', { class: 'e-value' }, entry.valueEl),
         h('div', { class: 'e-live' }, entry.liveEl),
@@ -137,6 +147,7 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
       h('div', { class: 'rh-actions' },
         h('button', { type: 'button', class: 'btn btn-small', dataset: { testid: 'meter' }, onclick: () => void pickMeter() }, m ? (m.label || m.serial) : 'Pick meter'),
         routeToggle,
+        h('a', { class: 'btn btn-small', href: '#/scan', dataset: { testid: 'round-scan' } }, 'Scan label'),
         h('button', { type: 'button', class: 'btn btn-small btn-finish', dataset: { testid: 'finish' }, onclick: () => void finish() }, 'Finish')));
     replace(routeToggle, `Route ${measured}/${route.length}`);
     replace(banner, m && isCalibrationOverdue(m.calibrationDue, new Date().toISOString())
@@ -169,10 +180,11 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
     const s = spot();
     const area = areaOf(bundle, s);
     replace(spotHead,
-      h('p', { class: 'eyebrow' }, `${index + 1} of ${route.length} · ${area?.name ?? ''}${area ? ` · ${AREA_KIND_LABEL[area.kind]}${area.zone !== null ? ` zone ${area.zone}` : ''}` : ''}`),
+      h('p', { class: 'eyebrow' }, `${index + 1} of ${route.length} · ${area?.name ?? ''}${area ? ` · ${area.zone !== null ? `zone ${area.zone}${area.gasGroup ? ` ${area.gasGroup}` : ''}` : AREA_KIND_LABEL[area.kind]}` : ''}`),
       h('h1', { class: 'spot-name', dataset: { testid: 'spot-name' } }, s.name),
       h('p', { class: 'spot-meta' }, h('span', { class: 'code' }, s.code), ` ${s.objectKind} · ${s.materialClass} · default ${fmtDistance(s.defaultDistance)} `,
         h('a', { href: `#/spot/${s.id}`, class: 'link' }, 'spot history')));
+    fuBanner.show(s.id);
     prevBtn.disabled = index === 0;
     nextBtn.disabled = index === route.length - 1;
     renderSpotReadings();
@@ -243,12 +255,12 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
       roundUnit = entry.unit();
       const r = await saveReading({
         ...e.value, id: newId(), roundId, spotId: spot().id, meterId, takenAt: new Date().toISOString(),
-        meterRange: '', distanceUncertaintyM: null, groundBehind: null, process: null,
         rhPercent: theRound.rhPercent, temperatureC: theRound.temperatureC,
       }, bundle);
       readings = [...readings, r];
       entry.reset({ value: '', note: '' });
       entry.flash(`Saved on this tablet: ${fmtAsEntered(r)} = ${fmtField(r.fieldVPerM)}`, r.verdict.level);
+      fuBanner.afterSave(r);
       renderHead(); renderSpotReadings(); renderRoute();
     } catch (err) {
       if (err instanceof z.ZodError) toast(err.issues.map((i) => i.message).join('; '), 'error');
@@ -324,6 +336,7 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
 
   renderHead();
   go(index);
+  if (wantedMissing) toast('The scanned spot is not on this round\'s route', 'warn');
   return () => {
     off();
     entry.dispose();

@@ -90,7 +90,8 @@ export async function spotPage(root: HTMLElement, params: Record<string, string>
     const err = h('p', { class: 'field-error', dataset: { errorFor: 'reason' } });
     const panel = entryPanel({
       bundle: bundle!, spot: () => spot!, meterId: () => old.meterId,
-      defaults: { unit: old.unit, polarity: old.polarity, distance: old.distance, zeroed: old.zeroed, side: old.side, note: old.note, value: String(old.value) },
+      defaults: { unit: old.unit, polarity: old.polarity, distance: old.distance, zeroed: old.zeroed, side: old.side, note: old.note, value: String(old.value),
+        meterRange: old.meterRange, groundBehind: old.groundBehind, distanceUncertaintyM: old.distanceUncertaintyM, process: old.process },
     });
     const done = await openSheet(`Correct the reading of ${fmtDateTime(old.takenAt)}`, (close) => {
       const submit = async () => {

@@ -24,7 +24,14 @@ export interface EntryDefaults {
   side: ReadingInput['side'];
   note: string;
   value: string;
+  /** Less common details, kept on the panel from one reading to the next (ground behind resets per spot). */
+  meterRange?: string;
+  groundBehind?: Distance | null;
+  distanceUncertaintyM?: number | null;
+  process?: ReadingInput['process'];
 }
+
+type EntryValue = Pick<ReadingInput, 'value' | 'unit' | 'polarity' | 'distance' | 'side' | 'zeroed' | 'note' | 'meterRange' | 'groundBehind' | 'distanceUncertaintyM' | 'process'>;
 
 export interface EntryPanel {
   /** The value display, polarity and unit. */
@@ -36,7 +43,7 @@ export interface EntryPanel {
   padEl: HTMLElement;
   /** The reading as entered, or a message saying what is missing. */
   /** What the panel controls; the caller adds ids, time, ambient and the rest. */
-  read(): { ok: true; value: Pick<ReadingInput, 'value' | 'unit' | 'polarity' | 'distance' | 'side' | 'zeroed' | 'note'> } | { ok: false; message: string };
+  read(): { ok: true; value: EntryValue } | { ok: false; message: string };
   reset(defaults: Partial<EntryDefaults>): void;
   unit(): ReadingUnit;
   /** A line shown in the live box until the next digit ("Saved on this tablet …"). */
@@ -110,7 +117,8 @@ export function entryPanel(opts: {
     },
   });
   const noteBtn = h('button', { type: 'button', class: 'btn opt-btn', dataset: { testid: 'note' }, onclick: () => void editNote() });
-  const optionsEl = h('div', { class: 'options-row' }, distBtn, zeroBtn, sideBtn, noteBtn);
+  const moreBtn = h('button', { type: 'button', class: 'btn opt-btn', dataset: { testid: 'more' }, onclick: () => void editMore() });
+  const optionsEl = h('div', { class: 'options-row' }, distBtn, zeroBtn, sideBtn, noteBtn, moreBtn);
 
   const pad = numpad({ label: 'Number pad for the reading', onChange: (v) => { st.value = v; render(); } });
   if (st.value) pad.set(st.value); // a correction starts from the value as entered
@@ -170,11 +178,72 @@ export function entryPanel(opts: {
     if (typeof v === 'string') { st.note = v; render(); }
   }
 
+  /**
+   * Less common details in one sheet: meter range, the nearest ground behind the
+   * object (a web over a roller reads low: the sheet model needs it), distance
+   * uncertainty, and the process state (running or idle, material, line speed).
+   */
+  async function editMore(): Promise<void> {
+    let range = st.meterRange ?? '';
+    let ground: Distance | null = st.groundBehind ?? null;
+    let du: number | null = st.distanceUncertaintyM ?? null;
+    let proc: ReadingInput['process'] = st.process ?? null;
+    const done = await openSheet('More about this reading', (close) => {
+      const body = h('div', { class: 'more-sheet' });
+      const speedPad = numpad({ label: 'Number pad for the line speed', maxLength: 5, onChange: (x) => {
+        const n = Number(x);
+        if (proc) proc = { ...proc, lineSpeedMPerS: x === '' || !Number.isFinite(n) ? null : n };
+        speedOut.textContent = proc?.lineSpeedMPerS != null ? `${proc.lineSpeedMPerS} m/s` : 'not given';
+      } });
+      const speedOut = h('output', { class: 'value-display value-small', dataset: { testid: 'more-speed' } });
+      const materialIn = h('input', { type: 'text', maxlength: 120, class: 'text-input', 'aria-label': 'Material on the line', dataset: { testid: 'more-material' } });
+      materialIn.value = proc?.material ?? '';
+      materialIn.addEventListener('input', () => { if (proc) proc = { ...proc, material: materialIn.value }; });
+      const seg = <T extends string | number | null>(label: string, testid: string, options: { value: T; label: string }[], get: () => T, set: (v: T) => void) => {
+        const row = h('div', { class: 'seg', role: 'group', 'aria-label': label, dataset: { testid } });
+        const draw = () => replace(row, options.map((o) => h('button', {
+          type: 'button', class: `seg-btn${o.value === get() ? ' is-on' : ''}`, 'aria-pressed': String(o.value === get()),
+          onclick: () => { set(o.value); draw(); renderProc(); },
+        }, o.label)));
+        draw();
+        return h('div', { class: 'more-row' }, h('span', { class: 'opt-label' }, label), row);
+      };
+      const groundKey = (g: Distance | null) => (g ? `${g.value} ${g.unit}` : 'none');
+      const procSection = h('div', { class: 'more-proc' });
+      const renderProc = () => {
+        speedOut.textContent = proc?.lineSpeedMPerS != null ? `${proc.lineSpeedMPerS} m/s` : 'not given';
+        replace(procSection, proc
+          ? [h('label', { class: 'more-row' }, h('span', { class: 'opt-label' }, 'Material'), materialIn),
+            h('div', { class: 'more-row' }, h('span', { class: 'opt-label' }, 'Line speed'), speedOut), speedPad.el]
+          : []);
+      };
+      replace(body,
+        seg<string>('Meter range', 'more-range', ['', '200 V', '2 kV', '20 kV', '200 kV', '2 MV'].map((v) => ({ value: v, label: v === '' ? 'not given' : v })), () => range, (v) => { range = v; }),
+        seg<string>('Nearest ground behind the object', 'more-ground', ['none', '5 mm', '10 mm', '25 mm', '50 mm', '100 mm', '300 mm'].map((v) => ({ value: v, label: v === 'none' ? 'not known' : v })),
+          () => groundKey(ground), (v) => { ground = v === 'none' ? null : { value: Number(v.split(' ')[0]), unit: 'mm' }; }),
+        seg<number | null>('Distance uncertainty', 'more-du', [null, 0.002, 0.005, 0.01, 0.02, 0.05].map((v) => ({ value: v, label: v === null ? 'spot default' : `± ${v * 1000} mm` })), () => du, (v) => { du = v; }),
+        seg<string>('Process', 'more-process', [{ value: 'none', label: 'not recorded' }, { value: 'running', label: 'running' }, { value: 'idle', label: 'idle' }],
+          () => proc?.state ?? 'none', (v) => { proc = v === 'none' ? null : { state: v as 'running' | 'idle', material: proc?.material ?? materialIn.value, lineSpeedMPerS: proc?.lineSpeedMPerS ?? null }; }),
+        procSection,
+        h('p', { class: 'muted small' }, 'A web measured over a roller or next to a grounded frame reads low: give the gap to that ground so the estimate can allow for it.'),
+        h('button', { type: 'button', class: 'btn btn-primary', dataset: { testid: 'more-done' }, onclick: () => close(true) }, 'Done'),
+      );
+      if (proc?.lineSpeedMPerS != null) speedPad.set(String(proc.lineSpeedMPerS));
+      renderProc();
+      return [body];
+    }, { wide: true });
+    if (done === true) {
+      st.meterRange = range; st.groundBehind = ground; st.distanceUncertaintyM = du; st.process = proc;
+      render();
+    }
+  }
+
   function current() {
     const value = st.value === '' ? NaN : Number(st.value);
     return {
-      value, unit: st.unit, polarity: st.polarity, meterRange: '', distance: st.distance, distanceUncertaintyM: null,
-      side: st.side, groundBehind: null, zeroed: st.zeroed, rhPercent: null, temperatureC: null, process: null, note: st.note,
+      value, unit: st.unit, polarity: st.polarity, meterRange: st.meterRange ?? '', distance: st.distance,
+      distanceUncertaintyM: st.distanceUncertaintyM ?? null, side: st.side, groundBehind: st.groundBehind ?? null,
+      zeroed: st.zeroed, rhPercent: null, temperatureC: null, process: st.process ?? null, note: st.note,
     };
   }
 
@@ -194,6 +263,8 @@ export function entryPanel(opts: {
     zeroBtn.classList.toggle('is-warn', !st.zeroed);
     sideBtn.replaceChildren(h('span', { class: 'opt-label' }, 'Side'), h('span', { class: 'opt-value' }, st.side ? (SIDE_LABEL[st.side] ?? st.side) : '—'));
     noteBtn.replaceChildren(h('span', { class: 'opt-label' }, 'Note'), h('span', { class: 'opt-value note-preview' }, st.note ? st.note : '+ add'));
+    const moreBits = [st.meterRange, st.groundBehind ? `ground ${fmtDistance(st.groundBehind)}` : '', st.process ? st.process.state : ''].filter(Boolean);
+    moreBtn.replaceChildren(h('span', { class: 'opt-label' }, 'More'), h('span', { class: 'opt-value note-preview' }, moreBits.length ? moreBits.join(' · ') : 'range, ground, process'));
 
     const spot = opts.spot();
     const cur = current();
@@ -233,11 +304,14 @@ export function entryPanel(opts: {
     read() {
       const c = current();
       if (st.value === '' || !Number.isFinite(c.value)) return { ok: false, message: 'Type the value on the pad first' };
-      return { ok: true, value: { value: c.value, unit: c.unit, polarity: c.polarity, distance: c.distance, side: c.side, zeroed: c.zeroed, note: c.note } };
+      return { ok: true, value: {
+        value: c.value, unit: c.unit, polarity: c.polarity, distance: c.distance, side: c.side, zeroed: c.zeroed, note: c.note,
+        meterRange: c.meterRange, groundBehind: c.groundBehind, distanceUncertaintyM: c.distanceUncertaintyM, process: c.process,
+      } };
     },
     flash(message, level = 'ok') { flashed = { message, level }; render(); },
     reset(d) {
-      if (d.distance) flashed = null; // a new spot
+      if (d.distance) { flashed = null; st.groundBehind = null; } // a new spot: its own ground behind
       st = { ...st, ...d };
       pad.set(st.value);
       render();

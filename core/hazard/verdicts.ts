@@ -260,9 +260,13 @@ export function hazardVerdicts(input: HazardInput): Verdict[] {
     } else if (Q === null) {
       na('transfer-charge', 'No charge in the estimate.', tl.source, atm.assumption);
     } else {
-      const lvl = grade(Q, tl.value, 'chargeC');
+      // The limit bounds the charge passed in ONE discharge; the estimate is the whole
+      // charge on the object, of which a brush discharge takes only a part. So reaching
+      // the limit is a reason to look closer (warn), never an alarm on its own.
+      const graded = grade(Q, tl.value, 'chargeC');
+      const lvl: VerdictLevel = graded === 'alarm' ? 'warn' : graded;
       push('transfer-charge', lvl, { quantity: 'chargeC', value: Math.abs(Q), unit: 'C', threshold: tl.value },
-        `Estimated charge ${si(Math.abs(Q), 'C')} against the transferred-charge limit ${si(tl.value, 'C')} for ${atm.groupLabel} (from memory). A single discharge from an insulator transfers only part of its charge, so this is a pessimistic comparison.`,
+        `Estimated charge ${si(Math.abs(Q), 'C')} against the transferred-charge limit ${si(tl.value, 'C')} for ${atm.groupLabel} (from memory). A single discharge from an insulator transfers only part of its charge, so this is a pessimistic screening: ${lvl === 'warn' ? 'worth a closer look (brush-discharge and ignition-charge checks), not an alarm by itself' : 'below the limit even if all of it transferred'}.`,
         tl.source, `${atm.assumption}; the whole charge transfers`);
     }
   }
