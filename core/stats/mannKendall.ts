@@ -71,7 +71,8 @@ export interface MannKendallOptions {
  * Reference: H. B. Mann (1945), "Nonparametric tests against trend",
  * Econometrica 13:245–259; M. G. Kendall (1975), Rank Correlation Methods, 4th
  * ed., Griffin; R. O. Gilbert (1987), Statistical Methods for Environmental
- * Pollution Monitoring, Van Nostrand Reinhold, ch. 16, eqs. 16.3–16.5.
+ * Pollution Monitoring, Van Nostrand Reinhold, ch. 16, eqs. 16.3–16.5 (equation
+ * numbers from memory).
  *
  * Example: for 1, 2, ..., 100 in order, S = 4950, Var S = 112750,
  * Z = 14.73869998208331, tau = 1, direction 'increasing'.

@@ -6,7 +6,7 @@ export { formatIsoWeek, isoWeekNumber, isoWeeksInYear, mondayOfIsoWeek, type Iso
 export { parseIsoWeek } from './parseIsoWeek';
 export { previousWeek } from './previousWeek';
 export { startOfLocalDay } from './startOfLocalDay';
-export { weekFromMonday, type Week } from './week';
+export { weekFromMonday, weekMonday, type Week } from './week';
 export { weekOf } from './weekOf';
 export { weeksBack } from './weeksBack';
 export { weekStart } from './weekStart';

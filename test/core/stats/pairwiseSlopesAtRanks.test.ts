@@ -56,8 +56,9 @@ describe('pairwiseSlopesAtRanks', () => {
       fc.property(fc.integer({ min: 210, max: 400 }), fc.integer({ min: 0, max: 2 ** 31 - 1 }), fc.boolean(), (n, seed, coarse) => {
         let state = seed;
         const next = () => {
-          state = (state * 1103515245 + 12345) % 2147483648;
-          return state / 2147483648;
+          // 32-bit LCG (Numerical Recipes' ranqd1), exact in integer arithmetic.
+          state = (Math.imul(state, 1664525) + 1013904223) >>> 0;
+          return state / 4294967296;
         };
         // Times in ms with some repeats; values either continuous or coarse (many tied slopes).
         const xs = Float64Array.from({ length: n }, (_, i) => Date.UTC(2025, 0, 1) + Math.floor(i / 3) * 3_600_000 + (i % 3 === 2 ? 0 : i % 3) * 60_000);

@@ -10,8 +10,8 @@ describe('percentile', () => {
   });
 
   it('matches numpy.percentile / R quantile type 7 on a textbook set', () => {
-    // numpy.percentile([15, 20, 35, 40, 50], 40) is 29.0 (numpy docs' "linear"
-    // method: h = 4 * 0.4 = 1.6, 20 + 0.6 * 15 = 29). Also simple-statistics 7.
+    // Wikipedia "Percentile", second variant (C = 1, = numpy "linear"), from memory:
+    // 40th percentile of 15, 20, 35, 40, 50 is 29 (h = 1.6, 20 + 0.6 * 15). Also simple-statistics 7.
     expect(percentile([15, 20, 35, 40, 50], 40)).toBeCloseTo(29, 12);
     expect(percentile([15, 20, 35, 40, 50], 40)).toBeCloseTo(ss.quantile([15, 20, 35, 40, 50], 0.4), 12);
   });
