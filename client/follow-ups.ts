@@ -5,35 +5,29 @@
  * the floor: queued behind its verifying reading, so the reading reaches the
  * server first, and sent when the network is back.
  *
- * The site's open follow-ups are cached in IndexedDB (kv 'followups.open.<siteId>')
- * with the set-up, so the round screen shows them with no network.
+ * Open follow-ups for the round screen offline: the set-up bundle carries them
+ * (cached in IndexedDB with the set-up), and the latest list from the server is
+ * also kept in kv 'followups.open.<siteId>' (fresher: it holds follow-ups opened
+ * since the set-up was fetched).
  */
 import { z } from 'zod';
+import { api } from './api';
 import { kvGet, put } from './offline/db';
 import { enqueue, loadOutbox, outboxItems } from './offline/outbox';
 import { kickSync } from './offline/sync';
-import {
-  FINDING_CLASSES, createFollowUp, openFollowUpsOfSite, type FollowUp, type FollowUpInput,
-} from './review-api';
-import { IsoDate } from '../core/schemas';
+import { prefs } from './state';
+import { openFollowUpsOfSite } from './review-api';
+import { FollowUpCloseSchema, FollowUpInputSchema, type FollowUp, type SetupBundle } from '../core/schemas';
 
 /**
- * The follow-up form, checked before sending. Mirrors what the server checks;
- * TODO(lead): replace with the shared schema from core/schemas once the server side
- * exports one (core/schemas/review.ts was not there when this was written).
+ * The form: the shared schema, plus what the form insists on (the issue's
+ * "what to do, who, due date": who and when are optional for the API, not here).
  */
-export const FollowUpFormSchema = z.object({
-  spotId: z.string().min(1),
-  openedFromReadingId: z.string().optional(),
-  findingClass: z.enum(FINDING_CLASSES, { error: 'pick the finding class' }),
-  action: z.string().trim().min(1, 'say what is to be done').max(2000, 'at most 2000 characters'),
-  assignee: z.string().trim().min(1, 'say who does it').max(120, 'at most 120 characters'),
-  dueDate: IsoDate,
+export const FollowUpFormSchema = FollowUpInputSchema.superRefine((f, ctx) => {
+  if (!f.assignee.trim()) ctx.addIssue({ code: 'custom', path: ['assignee'], message: 'say who does it' });
+  if (!f.dueDate) ctx.addIssue({ code: 'custom', path: ['dueDate'], message: 'give a due date' });
 });
-
-export const CloseReasonSchema = z.object({
-  reason: z.string().trim().min(3, 'write why it is closed without a reading').max(2000, 'at most 2000 characters'),
-});
+export type FollowUpFormInput = z.input<typeof FollowUpInputSchema>;
 
 const cacheKey = (siteId: string) => `followups.open.${siteId}`;
 
@@ -44,24 +38,24 @@ function pendingCloses(): Set<string> {
   return new Set(outboxItems().filter((i) => i.kind === 'follow-up-close').map((i) => i.entityId));
 }
 
-/** The site's open follow-ups from the network (cached), or the cache when offline. */
-export async function loadOpenFollowUps(siteId: string, opts: { preferCache?: boolean } = {}): Promise<{ list: FollowUp[]; fromCache: boolean; fetchedAt: string | null }> {
+/** The site's open follow-ups from the network (cached), or from the tablet when offline. */
+export async function loadOpenFollowUps(siteId: string, opts: { preferCache?: boolean; bundle?: SetupBundle } = {}): Promise<{ list: FollowUp[]; fromCache: boolean }> {
   await loadOutbox();
   const pending = pendingCloses();
-  const strip = (l: FollowUp[]) => l.filter((f) => !pending.has(f.id));
-  if (opts.preferCache) {
+  const strip = (l: FollowUp[]) => l.filter((f) => !pending.has(f.id) && f.status === 'open');
+  const cached = async () => {
     const c = await kvGet<Cached>(cacheKey(siteId));
-    if (c) {
-      void refreshOpenFollowUps(siteId).catch(() => undefined);
-      return { list: strip(c.list), fromCache: true, fetchedAt: c.fetchedAt };
-    }
+    const fromBundle = opts.bundle?.followUps ?? [];
+    // The newer of the two lists wins; the bundle's is dated by the set-up fetch.
+    return c ? c.list : fromBundle;
+  };
+  if (opts.preferCache) {
+    return { list: strip(await cached()), fromCache: true };
   }
   try {
-    const list = await refreshOpenFollowUps(siteId);
-    return { list: strip(list), fromCache: false, fetchedAt: new Date().toISOString() };
+    return { list: strip(await refreshOpenFollowUps(siteId)), fromCache: false };
   } catch {
-    const c = await kvGet<Cached>(cacheKey(siteId));
-    return { list: strip(c?.list ?? []), fromCache: true, fetchedAt: c?.fetchedAt ?? null };
+    return { list: strip(await cached()), fromCache: true };
   }
 }
 
@@ -72,9 +66,9 @@ export async function refreshOpenFollowUps(siteId: string): Promise<FollowUp[]> 
 }
 
 /** Validates, sends, and adds the new follow-up to the offline cache. Needs the network. */
-export async function openFollowUp(siteId: string, input: FollowUpInput): Promise<FollowUp> {
-  const body = FollowUpFormSchema.parse(input);
-  const f = await createFollowUp(body);
+export async function openFollowUp(siteId: string, input: FollowUpFormInput): Promise<FollowUp> {
+  const body = FollowUpFormSchema.parse({ ...input, by: input.by || prefs.surveyor || '' });
+  const f = await api<FollowUp>('POST', '/api/follow-ups', body);
   const c = await kvGet<Cached>(cacheKey(siteId));
   await put('kv', { list: [...(c?.list ?? []).filter((x) => x.id !== f.id), f], fetchedAt: c?.fetchedAt ?? new Date().toISOString() } satisfies Cached, cacheKey(siteId));
   return f;
@@ -82,11 +76,12 @@ export async function openFollowUp(siteId: string, input: FollowUpInput): Promis
 
 /**
  * Closes a follow-up through the outbox: with a verifying reading (its id; the
- * server checks it is within limits and of this spot) or with a written reason.
- * The cached open list drops it in the same transaction.
+ * server checks it is current, of this spot, taken after the follow-up was
+ * opened and within limits) or with a written reason. The cached open list drops
+ * it in the same transaction.
  */
 export async function closeFollowUp(siteId: string, f: FollowUp, how: { verifyingReadingId: string } | { reason: string }): Promise<void> {
-  const body = 'reason' in how ? CloseReasonSchema.parse(how) : { verifyingReadingId: how.verifyingReadingId };
+  const body = FollowUpCloseSchema.parse({ ...how, by: prefs.surveyor ?? '' });
   const c = await kvGet<Cached>(cacheKey(siteId));
   await enqueue([{
     key: `follow-up-close:${f.id}:${Date.now()}`, kind: 'follow-up-close', entityId: f.id, roundId: null, spotId: f.spotId, targetId: null,

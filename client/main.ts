@@ -2,6 +2,7 @@
  * Boot: top bar, routes, outbox sync, service worker. Pages live in pages/;
  * the offline machinery in offline/.
  */
+import './ui/review.css';
 import { route, startRouter } from './router';
 import { mountTopbar } from './ui/topbar';
 import { startSync } from './offline/sync';
@@ -14,6 +15,11 @@ import { setupPage } from './pages/setup/index';
 import { outboxPage } from './pages/outbox';
 import { sweepPage } from './pages/sweep';
 import { modelsPage } from './pages/models';
+import { reviewPage } from './pages/review';
+import { planPage, plansPage } from './pages/plan';
+import { labelsPage } from './pages/labels';
+import { scanPage } from './pages/scan';
+import { dataPage } from './pages/data';
 
 route('/', homePage);
 route('/round/new', roundStartPage);
@@ -25,6 +31,14 @@ route('/setup/:section', setupPage);
 route('/outbox', outboxPage);
 route('/sweep/:spotId', sweepPage);
 route('/models', modelsPage);
+route('/review', reviewPage);
+route('/review/:week', reviewPage);
+route('/plans', plansPage);
+route('/plan/:areaId', planPage);
+route('/labels', labelsPage);
+route('/scan', scanPage);
+route('/scan/:code', scanPage);
+route('/data', dataPage);
 
 mountTopbar(document.getElementById('topbar')!);
 startRouter();

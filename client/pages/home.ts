@@ -4,6 +4,7 @@ import { prefs } from '../state';
 import { setSite } from '../app';
 import { loadSetup, loadSites, refreshRecent, roundsOfSite } from '../data';
 import { routeOf } from '../round/logic';
+import { refreshOpenFollowUps } from '../follow-ups';
 import { fmtDateTime } from '../ui/format';
 import { pickOne } from '../ui/sheet';
 import type { Site } from '../../core/schemas';
@@ -70,7 +71,12 @@ async function renderHome(root: HTMLElement, alive: () => boolean, refresh: bool
             `Resume round · ${r.surveyor} · started ${fmtDateTime(r.startedAt)}`)),
           h('a', { class: 'btn btn-big', href: '#/round/new', dataset: { testid: 'start-round' } }, 'Start another round'))
         : h('a', { class: 'btn btn-primary btn-big', href: '#/round/new', dataset: { testid: 'start-round' } }, 'Start a round'),
-      h('div', { class: 'row gap wrap' },
+      h('nav', { class: 'home-nav', 'aria-label': 'Tools' },
+        h('a', { class: 'btn', href: '#/scan', dataset: { testid: 'nav-scan' } }, 'Scan label'),
+        h('a', { class: 'btn', href: '#/review', dataset: { testid: 'nav-review' } }, 'Review'),
+        h('a', { class: 'btn', href: '#/plans', dataset: { testid: 'nav-plans' } }, 'Plans'),
+        h('a', { class: 'btn', href: '#/labels', dataset: { testid: 'nav-labels' } }, 'Labels'),
+        h('a', { class: 'btn', href: '#/data', dataset: { testid: 'nav-data' } }, 'Data'),
         h('a', { class: 'btn', href: '#/setup' }, 'Set-up'),
         h('a', { class: 'btn', href: '#/outbox' }, 'Outbox'))),
     recent.length ? h('section', { class: 'card' },
@@ -88,10 +94,12 @@ async function renderHome(root: HTMLElement, alive: () => boolean, refresh: bool
             h('span', { class: 'code' }, s.code), h('span', null, s.name)))))))),
   );
 
-  if (!refresh) root.replaceChildren(body);
+  // A background refresh finishes late: never paint home over the screen the user went to meanwhile.
+  if (!refresh) { if (!alive()) return; root.replaceChildren(body); }
   // Keep recent rounds and readings cached for offline rounds (best effort, in the
   // background); then show rounds another tablet left open.
   if (refresh && !setup?.fromCache) {
+    void refreshOpenFollowUps(site.id).catch(() => undefined); // shown on the round screen, offline too
     void refreshRecent(site.id).then(() => { if (alive() && root.contains(body)) void renderHome(root, alive, false); }).catch(() => undefined);
   }
 }

@@ -99,7 +99,7 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
   const nextBtn = h('button', { type: 'button', class: 'btn btn-nav', dataset: { testid: 'next' }, onclick: () => go(index + 1) }, 'Next ▶');
   const skipBtn = h('button', { type: 'button', class: 'btn btn-skip', dataset: { testid: 'skip' }, onclick: () => void skip() }, 'Skip spot');
 
-  const fuBanner = followUpBanner(bundle.site.id, (spotId) => [...readings, ...spotHistory].filter((r) => r.spotId === spotId));
+  const fuBanner = followUpBanner(bundle, (spotId) => [...readings, ...spotHistory].filter((r) => r.spotId === spotId));
   const entry = entryPanel({
     bundle, spot, meterId: () => meterId,
     defaults: { unit: defaultUnit(), polarity: '+', distance: spot().defaultDistance, zeroed: true, side: null, note: '', value: '' },

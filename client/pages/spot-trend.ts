@@ -18,7 +18,7 @@ import { closeFollowUpSheet, followUpCard, openFollowUpForm, reopenSheet } from 
 import { errorText, NetworkError } from '../api';
 import {
   TREND_RANGES, TREND_RANGE_LABEL, followUpsOfSpot, getFollowUp, isNotEnough, loadTrend, reopenFollowUp,
-  type FollowUp, type TrendRange, type TrendResponse,
+  type FollowUp, type FollowUpWithEvents, type SpotTrend, type TrendRange,
 } from '../review-api';
 import { loadOpenFollowUps } from '../follow-ups';
 import { onOutboxChange } from '../offline/outbox';
@@ -29,39 +29,48 @@ import type { LocalReading } from '../offline/types';
 
 const DAY = 86_400_000;
 const RANGE_MS: Record<TrendRange, number | null> = { '4w': 28 * DAY, '13w': 91 * DAY, '1y': 365 * DAY, all: null };
+const RANGE_WORDS: Record<TrendRange, string> = { '4w': 'the last 4 weeks', '13w': 'the last 13 weeks', '1y': 'the last year', all: 'all time' };
 
 function pText(p: number): string {
   return Number.isFinite(p) && p >= 0 && p <= 1 ? formatPValue(p) : 'p not available';
 }
 
 /** The trend over the range in words. */
-export function trendWords(t: TrendResponse['trend']): string {
-  if (!t) return 'Trend: not computed.';
+export function trendWords(t: SpotTrend['trendSummary']): string {
   if (isNotEnough(t)) return `Trend: not enough data (${t.reason}).`;
-  const slope = t.slopePerWeek;
+  const slope = t.slopeVPerMPerWeek;
   if (!Number.isFinite(slope)) return 'Trend: not enough data.';
-  const ci = Number.isFinite(t.slopeLowerPerWeek) && Number.isFinite(t.slopeUpperPerWeek)
-    ? `, 95 % interval ${formatSi(t.slopeLowerPerWeek!, 'V/m')} to ${formatSi(t.slopeUpperPerWeek!, 'V/m')}` : '';
+  const ci = Number.isFinite(t.slopeLowerVPerMPerWeek) && Number.isFinite(t.slopeUpperVPerMPerWeek)
+    ? `, ${Math.round((1 - t.alpha) * 100)} % interval ${signed(t.slopeLowerVPerMPerWeek)} to ${signed(t.slopeUpperVPerMPerWeek)}` : '';
   const head = t.significant && t.direction === 'increasing' ? 'Rising' : t.significant && t.direction === 'decreasing' ? 'Falling' : 'No significant trend';
-  const signed = `${slope >= 0 ? '+' : '−'}${formatSi(Math.abs(slope), 'V/m')}`;
-  return `${head}: ${signed} per week (Theil–Sen slope of |field|${ci}); Mann–Kendall ${pText(t.pValue)} over ${t.n} readings${t.significant ? ', significant' : ', not significant'} at ${Math.round((t.alpha ?? 0.05) * 100)} %.`;
+  return `${head}: ${signed(slope)} per week (Theil–Sen slope of |field|${ci}); Mann–Kendall ${pText(t.pValue)}, ${t.significant ? 'significant' : 'not significant'} at ${Math.round(t.alpha * 100)} %; ${t.n} points (${t.basis}).`;
+}
+
+function signed(v: number): string {
+  return `${v >= 0 ? '+' : '−'}${formatSi(Math.abs(v), 'V/m')}`;
 }
 
 /** The humidity relation in words. */
-export function humidityWords(x: TrendResponse['humidity']): string {
-  if (!x) return 'Humidity: not computed.';
+export function humidityWords(x: SpotTrend['humidity']): string {
   if (isNotEnough(x)) return `Humidity: not enough data (${x.reason}).`;
   const pct = x.percentChangePerRhPoint;
   if (!Number.isFinite(pct)) return 'Humidity: not enough data.';
   const what = !x.significant ? 'no significant relation to humidity in this range'
     : pct < 0 ? 'drier air goes with higher fields here' : 'more humid air goes with higher fields here (unusual: check the process)';
-  return `Humidity: |field| changes by ${pct >= 0 ? '+' : '−'}${Math.abs(pct).toFixed(1)} % per RH point (slope of log₁₀|E| against RH ${x.slopeLog10PerRhPoint.toFixed(4)} per point, ${pText(x.pValue)}${x.rSquared !== undefined && Number.isFinite(x.rSquared) ? `, R² ${x.rSquared.toFixed(2)}` : ''}, ${x.n} readings): ${what}.`;
+  return `Humidity: |field| changes by ${pct >= 0 ? '+' : '−'}${Math.abs(pct).toFixed(1)} % per RH point (slope of log₁₀|E| against RH ${x.slopeLog10PerRhPoint.toFixed(4)} per point, ${pText(x.pValue)}, R² ${Number.isFinite(x.rSquared) ? x.rSquared.toFixed(2) : '—'}, ${x.n} readings): ${what}.`;
+}
+
+/** Theil–Sen intercept for the drawn line: the median of |E| - slope * t (Sen 1968). */
+function medianOf(xs: number[]): number {
+  const a = [...xs].sort((p, q) => p - q);
+  const m = Math.floor(a.length / 2);
+  return a.length % 2 ? a[m]! : (a[m - 1]! + a[m]!) / 2;
 }
 
 export function spotTrendSection(spot: Spot): { el: HTMLElement; dispose(): void } {
   let range: TrendRange = '13w';
   let log = false;
-  let data: TrendResponse | null = null;
+  let data: SpotTrend | null = null;
   let chart: Chart | null = null;
   let charge: Chart | null = null;
   let seq = 0;
@@ -96,7 +105,7 @@ export function spotTrendSection(spot: Spot): { el: HTMLElement; dispose(): void
       const d = await loadTrend(spot.id, range);
       if (my !== seq || !alive) return;
       data = d;
-      status.textContent = d.points.length === 0 ? `No readings in the last ${TREND_RANGE_LABEL[range].toLowerCase()}.` : '';
+      status.textContent = d.points.length === 0 ? `No readings in ${RANGE_WORDS[range]}.` : '';
       await draw();
     } catch (e) {
       if (my !== seq || !alive) return;
@@ -115,12 +124,16 @@ export function spotTrendSection(spot: Spot): { el: HTMLElement; dispose(): void
     })).filter((p) => Number.isFinite(p.t));
     const now = Date.now();
     const span = RANGE_MS[range];
-    const toMs = d.to ? Date.parse(d.to) : now;
-    const fromMs = d.from ? Date.parse(d.from) : span ? toMs - span : Math.min(...points.map((p) => p.t), toMs - 7 * DAY);
-    const t = d.trend && !isNotEnough(d.trend) && Number.isFinite(d.trend.slopePerWeek) && Number.isFinite(d.trend.levelAtCentre) && Number.isFinite(d.trend.centreMs)
-      ? { centreMs: d.trend.centreMs!, level: d.trend.levelAtCentre!, slopePerMs: d.trend.slopePerWeek / (7 * DAY) } : null;
+    const toMs = d.range.to ? Date.parse(d.range.to) : now;
+    const fromMs = d.range.from ? Date.parse(d.range.from) : span ? toMs - span : Math.min(...points.map((p) => p.t), toMs - 7 * DAY);
+    let t: { centreMs: number; level: number; slopePerMs: number } | null = null;
+    const ts = d.trendSummary;
+    if (!isNotEnough(ts) && Number.isFinite(ts.slopeVPerMPerWeek) && points.length >= 2) {
+      const slopePerMs = ts.slopeVPerMPerWeek / (7 * DAY);
+      t = { centreMs: 0, level: medianOf(points.map((p) => Math.abs(p.fieldVPerM) - slopePerMs * p.t)), slopePerMs };
+    }
     const cd = {
-      points, warn: d.bands?.warn ?? null, alarm: d.bands?.alarm ?? null, trendLine: t,
+      points, warn: d.bands?.warnVPerM ?? null, alarm: d.bands?.alarmVPerM ?? null, trendLine: t,
       fromMs: Number.isFinite(fromMs) ? fromMs : now - 91 * DAY, toMs: Number.isFinite(toMs) ? toMs : now, log,
     };
     const mod = await import('../ui/trend-chart');
@@ -134,19 +147,19 @@ export function spotTrendSection(spot: Spot): { el: HTMLElement; dispose(): void
       chargeImg.src = charge.toBase64Image('image/png', 1);
     } else { charge?.destroy(); charge = null; }
     replace(words,
-      h('p', { dataset: { testid: 'trend-sentence' } }, trendWords(d.trend)),
+      h('p', { dataset: { testid: 'trend-sentence' } }, trendWords(d.trendSummary)),
       h('p', { dataset: { testid: 'humidity-sentence' } }, humidityWords(d.humidity)),
-      d.bands && (d.bands.warn !== null || d.bands.alarm !== null)
-        ? h('p', { class: 'muted' }, `Bands: WARN from ${formatSi(d.bands.warn, 'V/m')}, ALARM from ${formatSi(d.bands.alarm, 'V/m')}${d.bands.source ? ` (${d.bands.source})` : ''}. Plotted as magnitude; polarity is in the table.`)
+      d.bands && (d.bands.warnVPerM !== null || d.bands.alarmVPerM !== null)
+        ? h('p', { class: 'muted' }, `Bands: WARN from ${formatSi(d.bands.warnVPerM, 'V/m')}, ALARM from ${formatSi(d.bands.alarmVPerM, 'V/m')}${d.bands.source ? ` (${d.bands.source})` : ''}. Plotted as magnitude; polarity is in the table.`)
         : h('p', { class: 'muted' }, 'No field limits apply to this spot. Plotted as magnitude; polarity is in the table.'));
     renderTable(d);
   }
 
-  function renderTable(d: TrendResponse): void {
+  function renderTable(d: SpotTrend): void {
     const rows = [...d.points].sort((a, b) => b.takenAt.localeCompare(a.takenAt));
     const hasCharge = rows.some((p) => p.chargeC !== null && p.chargeC !== undefined);
     replace(table, rows.length === 0 ? null : h('table', { class: 'table trend-table', dataset: { testid: 'trend-table' } },
-      h('caption', null, `Readings, last ${TREND_RANGE_LABEL[range].toLowerCase()} (${rows.length})`),
+      h('caption', null, `Readings, ${RANGE_WORDS[range]} (${rows.length})`),
       h('thead', null, h('tr', null, h('th', null, 'When'), h('th', null, 'Field'), h('th', null, 'Verdict'), h('th', null, 'RH'), hasCharge ? h('th', null, 'Est. charge') : null)),
       h('tbody', null, rows.map((p) => h('tr', null,
         h('td', null, fmtDateTime(p.takenAt)),
@@ -178,16 +191,16 @@ export function spotFollowUpsSection(bundle: SetupBundle, spot: Spot, readings: 
         },
       }, 'Open a follow-up')),
     note, list);
-  let items: FollowUp[] = [];
+  let items: (FollowUp | FollowUpWithEvents)[] = [];
 
   async function refresh(): Promise<void> {
     try {
       const all = await followUpsOfSpot(spot.id);
       // History comes with each follow-up's own answer.
-      items = await Promise.all(all.map((f) => (f.events ? Promise.resolve(f) : getFollowUp(f.id).catch(() => f))));
+      items = await Promise.all(all.map((f) => getFollowUp(f.id).catch(() => f)));
       note.textContent = '';
     } catch {
-      const c = await loadOpenFollowUps(bundle.site.id, { preferCache: true });
+      const c = await loadOpenFollowUps(bundle.site.id, { preferCache: true, bundle });
       items = c.list.filter((f) => f.spotId === spot.id);
       note.textContent = 'Offline: open follow-ups as cached on this tablet (history needs the network).';
     }

@@ -11,7 +11,7 @@ import { verdictChip } from './verdict';
 import { fmtAsEntered, fmtDateTime, fmtField } from './format';
 import { errorText, NetworkError } from '../api';
 import { closeFollowUp, closePending, openFollowUp, FollowUpFormSchema } from '../follow-ups';
-import { FINDING_CLASSES, FINDING_LABEL, openedAtOf, type FindingClass, type FollowUp } from '../review-api';
+import { FINDING_CLASSES, FINDING_LABEL, type FindingClass, type FollowUp, type FollowUpWithEvents } from '../review-api';
 import type { LocalReading } from '../offline/types';
 
 const CLASS_ICON: Record<FindingClass, string> = { observation: '○', 'minor-nonconformance': '◆', 'major-nonconformance': '▲' };
@@ -30,14 +30,15 @@ export function isOverdue(f: FollowUp): boolean {
   return f.status === 'open' && typeof f.dueDate === 'string' && f.dueDate < todayIso();
 }
 
-function fmtDue(date: string): string {
+function fmtDue(date: string | null): string {
+  if (!date) return 'no due date';
   const d = new Date(`${date}T12:00:00`);
   return Number.isNaN(d.getTime()) ? date : d.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' });
 }
 
 /** 'Open follow-up: fit an ioniser (due 3 Mar 2026)' */
 export function followUpLine(f: FollowUp): string {
-  return `Open follow-up: ${f.action} (due ${fmtDue(f.dueDate)}${isOverdue(f) ? ', overdue' : ''})`;
+  return `Open follow-up: ${f.action} (${f.dueDate ? `due ${fmtDue(f.dueDate)}` : 'no due date'}${isOverdue(f) ? ', overdue' : ''})`;
 }
 
 const EVENT_LABEL: Record<string, string> = { opened: 'Opened', closed: 'Closed', reopened: 'Reopened', edited: 'Changed' };
@@ -49,24 +50,24 @@ export interface CardActions {
   history?: boolean;
 }
 
-export function followUpCard(f: FollowUp, act: CardActions = {}): HTMLElement {
+export function followUpCard(f: FollowUp | FollowUpWithEvents, act: CardActions = {}): HTMLElement {
   const pending = closePending(f.id);
-  const events = f.events ?? [];
-  const closedWhy = f.closedReason ?? f.closeReason ?? null;
+  const events = 'events' in f ? f.events : [];
+  const closedWhy = f.closedReason;
   return h('article', { class: `fu-card fu-${f.status}${isOverdue(f) ? ' is-overdue' : ''}`, dataset: { followUpId: f.id, status: pending ? 'closing' : f.status } },
     h('div', { class: 'row gap wrap' },
       findingChip(f.findingClass),
       h('span', { class: `chip fu-status fu-status-${pending ? 'closing' : f.status}` }, pending ? 'closing: saved on this tablet' : f.status === 'open' ? 'OPEN' : 'CLOSED'),
       isOverdue(f) ? h('span', { class: 'chip verdict-alarm' }, '▲ overdue') : null),
     h('p', { class: 'fu-action' }, f.action),
-    h('p', { class: 'fu-meta' }, `Who: ${f.assignee} · due ${fmtDue(f.dueDate)}${openedAtOf(f) ? ` · opened ${fmtDateTime(openedAtOf(f))}` : ''}`),
-    f.status === 'closed' ? h('p', { class: 'fu-meta' }, `Closed ${fmtDateTime(f.closedAt ?? null)}${f.verifyingReadingId ? ' with a verifying reading within limits' : ''}${closedWhy ? `: ${closedWhy}` : ''}`) : null,
+    h('p', { class: 'fu-meta' }, `Who: ${f.assignee || '—'} · ${f.dueDate ? `due ${fmtDue(f.dueDate)}` : 'no due date'} · opened ${fmtDateTime(f.createdAt)}${f.openedBy ? ` by ${f.openedBy}` : ''}`),
+    f.status === 'closed' ? h('p', { class: 'fu-meta', dataset: { testid: 'fu-closed-how' } }, `Closed ${fmtDateTime(f.closedAt)}${f.closedBy ? ` by ${f.closedBy}` : ''}${f.closedByReadingId ? ' with a verifying reading within limits' : ''}${closedWhy ? `: ${closedWhy}` : ''}`) : null,
     act.history && events.length ? h('details', { class: 'fu-history' },
       h('summary', null, `History (${events.length})`),
       h('ol', null, events.map((e) => h('li', null,
-        `${fmtDateTime(e.at)} · ${EVENT_LABEL[e.kind ?? e.type ?? ''] ?? (e.kind ?? e.type ?? 'event')}`,
+        `${fmtDateTime(e.at)} · ${EVENT_LABEL[e.kind] ?? e.kind}`,
         e.by ? ` by ${e.by}` : '',
-        e.verifyingReadingId ? ' · verifying reading' : '',
+        e.kind === 'closed' && e.readingId ? ' with a verifying reading' : '',
         e.reason ? `: ${e.reason}` : '')))) : null,
     h('div', { class: 'row gap wrap no-print' },
       f.status === 'open' && !pending && act.onClose ? h('button', { type: 'button', class: 'btn btn-small', dataset: { testid: 'fu-close' }, onclick: () => act.onClose!(f) }, 'Close…') : null,
@@ -97,13 +98,22 @@ export async function openFollowUpForm(opts: { siteId: string; spotId: string; s
         h('button', { type: 'button', class: 'btn', onclick: () => close(null) }, 'Cancel')));
     async function submit(): Promise<void> {
       const input = {
-        spotId: opts.spotId, ...(opts.openedFromReadingId ? { openedFromReadingId: opts.openedFromReadingId } : {}),
-        findingClass: cls ?? undefined, action: action.value.trim(), assignee: assignee.value.trim(), dueDate: due.value,
+        spotId: opts.spotId, openedFromReadingId: opts.openedFromReadingId ?? null,
+        findingClass: cls ?? undefined, action: action.value.trim(), assignee: assignee.value.trim(), dueDate: due.value || null,
       };
       const parsed = FollowUpFormSchema.safeParse(input);
-      if (!parsed.success) { showFieldErrors(form, zodFields(parsed.error)); return; }
+      // The form's own rules (who, when) are said together with the schema's, not after them.
+      const extra = [
+        ...(!input.assignee ? [{ path: 'assignee', message: 'say who does it' }] : []),
+        ...(!input.dueDate ? [{ path: 'dueDate', message: 'give a due date' }] : []),
+      ];
+      if (!parsed.success) {
+        const fields = zodFields(parsed.error);
+        showFieldErrors(form, [...fields, ...extra.filter((x) => !fields.some((f) => f.path === x.path))]);
+        return;
+      }
       try {
-        close(await openFollowUp(opts.siteId, parsed.data));
+        close(await openFollowUp(opts.siteId, input as Parameters<typeof openFollowUp>[1]));
       } catch (e) {
         if (e instanceof z.ZodError) showFieldErrors(form, zodFields(e));
         else if (e instanceof NetworkError) showFieldErrors(form, [], 'Opening a follow-up needs the network: nothing was saved. Try again when online.');
@@ -122,7 +132,7 @@ function plusDays(n: number): string {
 
 /** Readings that can verify a follow-up: current, within limits, taken after it was opened. */
 export function verifyingCandidates(f: FollowUp, readings: LocalReading[]): LocalReading[] {
-  const since = openedAtOf(f) ?? '';
+  const since = f.createdAt;
   return readings
     .filter((r) => r.spotId === f.spotId && r.supersededById === null && r.deleted === null && r.verdict.level === 'ok' && r.takenAt >= since)
     .sort((a, b) => b.takenAt.localeCompare(a.takenAt))

@@ -73,14 +73,14 @@ export function drawTrendChart(canvas: HTMLCanvasElement, d: TrendChartData, pre
   if (d.alarm !== null && Number.isFinite(d.alarm)) {
     datasets.push({
       type: 'line', label: `ALARM level ${formatSi(d.alarm, 'V/m')}`, data: [{ x: d.fromMs, y: d.alarm / fs.div }, { x: d.toMs, y: d.alarm / fs.div }],
-      borderColor: COLORS.alarm, borderWidth: 2, borderDash: [10, 4], pointRadius: 0, pointHoverRadius: 0,
+      borderColor: COLORS.alarm, borderWidth: 2, borderDash: [10, 4], pointRadius: 0, pointHoverRadius: 0, pointStyle: 'line',
       backgroundColor: 'rgba(179, 0, 27, 0.12)', fill: 'end', order: 10, yAxisID: 'y',
     });
   }
   if (d.warn !== null && Number.isFinite(d.warn)) {
     datasets.push({
       type: 'line', label: `WARN level ${formatSi(d.warn, 'V/m')}`, data: [{ x: d.fromMs, y: d.warn / fs.div }, { x: d.toMs, y: d.warn / fs.div }],
-      borderColor: COLORS.warn, borderWidth: 2, borderDash: [4, 4], pointRadius: 0, pointHoverRadius: 0,
+      borderColor: COLORS.warn, borderWidth: 2, borderDash: [4, 4], pointRadius: 0, pointHoverRadius: 0, pointStyle: 'line',
       backgroundColor: 'rgba(255, 179, 0, 0.18)', fill: d.alarm !== null ? { value: d.alarm / fs.div } : 'end', order: 11, yAxisID: 'y',
     });
   }
@@ -100,7 +100,7 @@ export function drawTrendChart(canvas: HTMLCanvasElement, d: TrendChartData, pre
     const b = d.points.length ? Math.max(...d.points.map((p) => p.t)) : d.toMs;
     datasets.push({
       type: 'line', label: 'Trend (Theil–Sen)', data: [{ x: a, y: f(a) }, { x: b, y: f(b) }].map((p) => ({ x: p.x, y: d.log ? Math.max(p.y, floorLog) : Math.max(p.y, 0) })),
-      borderColor: INK, borderWidth: 3, pointRadius: 0, pointHoverRadius: 0, order: 2, yAxisID: 'y',
+      borderColor: INK, borderWidth: 3, pointRadius: 0, pointHoverRadius: 0, pointStyle: 'line', order: 2, yAxisID: 'y',
     });
   }
   const rhPts = d.points.filter((p) => p.rh !== null && Number.isFinite(p.rh)).sort((a, b) => a.t - b.t);
@@ -124,7 +124,7 @@ export function drawTrendChart(canvas: HTMLCanvasElement, d: TrendChartData, pre
           grid: { color: '#e0e4ea' },
         },
         y: {
-          type: d.log ? 'logarithmic' : 'linear', position: 'left', min: d.log ? floorLog : 0, max: top,
+          type: d.log ? 'logarithmic' : 'linear', position: 'left', min: d.log ? floorLog : 0, suggestedMax: top,
           title: { display: true, text: `|field| at the meter, ${fs.unit}${d.log ? ' (log)' : ''}`, font, color: INK },
           ticks: { color: INK, font: tickFont, maxTicksLimit: 8, callback: (v) => formatTick(Number(v)) }, grid: { color: '#d3d9e0' },
         },
