@@ -7,7 +7,7 @@ import express, { type Express } from 'express';
 import { z } from 'zod';
 import { apiRoutes } from './routes';
 import { errorHandler, HttpError } from './http/errors';
-import { defineRoute, mountRoutes, type Route } from './http/route';
+import { defineRoute, hasOwnBodyParser, mountRoutes, type Route } from './http/route';
 import { noStore, requireJsonBody, securityHeaders } from './http/security';
 import { staticClient } from './http/static-client';
 import { buildOpenApi } from './openapi';
@@ -51,9 +51,12 @@ export function buildApp(opts: AppOptions): Express {
 
   const api = express.Router();
   api.use(noStore);
+  const routes = allRoutes(opts.version);
+  // Routes that read their own body (a plan image, a large import) come before the global JSON parser.
+  mountRoutes(api, routes.filter(hasOwnBodyParser), opts.store);
   api.use(requireJsonBody);
   api.use(express.json({ limit: opts.bodyLimit, type: 'application/json', strict: true }));
-  mountRoutes(api, allRoutes(opts.version), opts.store);
+  mountRoutes(api, routes.filter((r) => !hasOwnBodyParser(r)), opts.store);
   api.use((req, _res, next) => {
     next(new HttpError(404, 'not-found', `no API route ${req.method} /api${req.path}; see /api/openapi.json`));
   });

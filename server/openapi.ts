@@ -23,8 +23,8 @@ const ERROR_TEXT: Record<number, string> = {
   400: 'invalid input (code invalid): fields name each problem with its dotted path',
   404: 'unknown id (code not-found)',
   409: 'conflict with stored data (code conflict)',
-  413: 'body larger than CHARGEWALK_BODY_LIMIT (code too-large)',
-  415: 'body that is not JSON (code unsupported-media-type)',
+  413: 'body larger than its limit (CHARGEWALK_BODY_LIMIT for JSON; the route says when it has its own) (code too-large)',
+  415: 'body of a type the route does not take (code unsupported-media-type)',
   503: 'database busy (code unavailable): retry',
 };
 
@@ -64,7 +64,7 @@ export function buildOpenApi(routes: Route[], info: { version: string }): Json {
   };
   const errorSchema = use(ErrorEnvelopeSchema, 'output');
 
-  const ops: { route: Route; body?: Converted; query?: { name: string; required: boolean; c: Converted; description?: string }[]; responses: [string, string, Converted | null][] }[] = [];
+  const ops: { route: Route; body?: Converted; query?: { name: string; required: boolean; c: Converted; description?: string }[]; responses: [string, string, Converted | null, string?][] }[] = [];
   for (const route of routes) {
     const bodySchema = route.body ?? route.bodyDoc;
     const body = bodySchema ? use(bodySchema, 'input') : undefined;
@@ -74,8 +74,8 @@ export function buildOpenApi(routes: Route[], info: { version: string }): Json {
         name, required: !s.safeParse(undefined).success, c: use(s, 'input'),
       }));
     }
-    const responses: [string, string, Converted | null][] = Object.entries(route.responses)
-      .map(([status, doc]) => [status, doc.description, doc.schema ? use(doc.schema, 'output') : null]);
+    const responses: [string, string, Converted | null, string?][] = Object.entries(route.responses)
+      .map(([status, doc]) => [status, doc.description, doc.schema ? use(doc.schema, 'output') : null, doc.contentType]);
     for (const status of route.errors) responses.push([String(status), ERROR_TEXT[status] ?? 'error', errorSchema]);
     responses.push(['500', 'a fault of the server (code internal); never caused by input', errorSchema]);
     ops.push({ route, body, query, responses });
@@ -109,7 +109,9 @@ export function buildOpenApi(routes: Route[], info: { version: string }): Json {
     const path = openApiPath(route.path);
     const parameters: Json[] = [];
     for (const m of route.path.matchAll(/:(\w+)/g)) {
-      parameters.push({ name: m[1], in: 'path', required: true, schema: convert(Id, 'input').schema, description: `id of the ${route.resource ?? 'record'} (UUID)` });
+      parameters.push(m[1] === 'id'
+        ? { name: m[1], in: 'path', required: true, schema: convert(Id, 'input').schema, description: `id of the ${route.resource ?? 'record'} (UUID)` }
+        : { name: m[1], in: 'path', required: true, schema: { type: 'string' } });
     }
     for (const q of query ?? []) parameters.push({ name: q.name, in: 'query', required: q.required, schema: schemaOf(q.c) });
     const op: Json = {
@@ -119,8 +121,16 @@ export function buildOpenApi(routes: Route[], info: { version: string }): Json {
       ...(route.description ? { description: route.description } : {}),
       ...(parameters.length ? { parameters } : {}),
       ...(body ? { requestBody: { required: true, content: { 'application/json': { schema: schemaOf(body) } } } } : {}),
-      responses: Object.fromEntries(responses.map(([status, description, c]) => [
-        status, c ? { description, content: { 'application/json': { schema: schemaOf(c) } } } : { description },
+      ...(route.rawBody ? {
+        requestBody: {
+          required: true,
+          content: Object.fromEntries(route.rawBody.types.map((t) => [t, { schema: { type: 'string', contentMediaType: t } }])),
+        },
+      } : {}),
+      responses: Object.fromEntries(responses.map(([status, description, c, contentType]) => [
+        status, contentType
+          ? { description, content: { [contentType]: { schema: { type: 'string', contentMediaType: contentType } } } }
+          : c ? { description, content: { 'application/json': { schema: schemaOf(c) } } } : { description },
       ])),
     };
     paths[path] = { ...(paths[path] ?? {}), [route.method]: op };

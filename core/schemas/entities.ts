@@ -7,6 +7,7 @@ import { z } from 'zod';
 import { LimitMetricSchema } from './domain';
 import { EstimateResponseSchema } from './estimate';
 import { EstimateNoteSchema, HazardVerdictSchema } from './hazard';
+import { FollowUpSchema } from './follow-ups';
 import {
   AreaInputSchema, LimitSetInputSchema, MeterInputSchema, ReadingInputSchema,
   RoundInputSchema, SiteInputSchema, SkipInputSchema, SpotInputSchema,
@@ -98,6 +99,8 @@ export const SetupBundleSchema = z.object({
   spots: z.array(SpotSchema),
   meters: z.array(MeterSchema),
   limitSets: z.array(LimitSetSchema),
+  /** Open follow-ups, so the round screen shows them at their spot offline too (the server always sends the list). */
+  followUps: z.array(FollowUpSchema).optional(),
 }).meta({ id: 'SetupBundle', description: 'Everything a tablet needs to walk the site offline.' });
 
 export type Site = z.infer<typeof SiteSchema>;

@@ -9,11 +9,13 @@
  * - C-04 (web at dryer exit) trends up week by week;
  * - C-05 (rewind roll) alarms until an ionising bar is fitted in week 9, then drops;
  * - the spare meter's calibration ran out three weeks ago (its readings are flagged);
- * - a few readings were corrected (a missed digit) and one deleted (wrong spot).
+ * - a few readings were corrected (a missed digit) and one deleted (wrong spot);
+ * - follow-ups: one on C-05 opened from an alarm before the fix and closed by the
+ *   first verifying reading within limits after it; one open on C-04 (trending up).
  */
 import { v7 } from 'uuid';
 import {
-  AreaInputSchema, CorrectionInputSchema, LimitSetInputSchema, MeterInputSchema, ReadingInputSchema, RoundInputSchema,
+  AreaInputSchema, CorrectionInputSchema, FollowUpInputSchema, LimitSetInputSchema, MeterInputSchema, ReadingInputSchema, RoundInputSchema,
   SiteInputSchema, SkipInputSchema, SpotInputSchema, type ReadingInput,
 } from '../../core/schemas';
 import { METRES_PER_DISTANCE_UNIT } from '../../core/units/distance';
@@ -39,6 +41,7 @@ export interface DemoCounts {
   corrections: number;
   tombstones: number;
   skips: number;
+  followUps: number;
 }
 
 function isoDate(ms: number): string {
@@ -108,6 +111,7 @@ export async function loadDemo(store: Store, opts: { now?: Date; seed?: number }
   // ---------- rounds ----------
   const counts: DemoCounts = {
     siteId: site.id, areas: Object.keys(AREAS).length, spots: SPOTS.length, meters: 3, rounds: 0, readings: 0, corrections: 0, tombstones: 0, skips: 0,
+    followUps: 0,
   };
   const firstMonday = mondayUtc(nowMs) - (DEMO_WEEKS - 1) * 7 * DAY;
   const toCorrect: { input: ReadingInput; trueValue: number }[] = [];
@@ -191,6 +195,36 @@ export async function loadDemo(store: Store, opts: { now?: Date; seed?: number }
     const del: ReadingInput = toDelete;
     await store.tombstoneReading(del.id, 'entered at the wrong spot (it was the reel cart, E-03)', { at: new Date(Date.parse(del.takenAt) + 3600_000).toISOString() });
     counts.tombstones++;
+  }
+
+  // ---------- follow-ups ----------
+  const spotId = (code: string) => spotIds[SPOTS.findIndex((x) => x.spot.code === code)]!;
+  const c05 = SPOTS.find((x) => x.spot.code === 'C-05')!;
+  const fixMs = firstMonday + (c05.fixedFromWeek ?? 8) * 7 * DAY;
+  const c05Readings = ((await store.listSpotReadings(spotId('C-05'), { history: false, limit: 1000 })) ?? [])
+    .sort((a, b) => a.takenAt.localeCompare(b.takenAt));
+  const lastAlarm = c05Readings.filter((r) => r.verdict.level === 'alarm' && Date.parse(r.takenAt) < fixMs).at(-1);
+  if (lastAlarm) {
+    const openedAt = Date.parse(lastAlarm.takenAt) + 4 * 3600_000;
+    const f = await store.createFollowUp(FollowUpInputSchema.parse({
+      spotId: spotId('C-05'), openedFromReadingId: lastAlarm.id, findingClass: 'major-nonconformance',
+      action: 'Fit an ionising bar before the rewind of printer 2 and earth the rewind shaft', assignee: 'Maintenance',
+      dueDate: isoDate(fixMs + 7 * DAY), by: SURVEYORS[1],
+    }), { at: new Date(openedAt).toISOString() });
+    counts.followUps++;
+    const verifying = c05Readings.find((r) => r.verdict.level === 'ok' && Date.parse(r.takenAt) >= fixMs);
+    if (verifying) {
+      await store.closeFollowUp(f.id, { verifyingReadingId: verifying.id, by: SURVEYORS[0] ?? '' }, { at: new Date(Date.parse(verifying.takenAt) + 3600_000).toISOString() });
+    }
+  }
+  const c04Latest = ((await store.listSpotReadings(spotId('C-04'), { history: false, limit: 1 })) ?? [])[0];
+  if (c04Latest) {
+    await store.createFollowUp(FollowUpInputSchema.parse({
+      spotId: spotId('C-04'), openedFromReadingId: c04Latest.id, findingClass: 'observation',
+      action: 'Field at the dryer exit rises week by week: check the static bar after the dryer and its cleaning schedule', assignee: 'Line 2 lead',
+      dueDate: isoDate(nowMs + 10 * DAY), by: SURVEYORS[2],
+    }), { at: new Date(Math.min(nowMs, Date.parse(c04Latest.takenAt) + 2 * 3600_000)).toISOString() });
+    counts.followUps++;
   }
   return counts;
 }

@@ -15,10 +15,12 @@
  *   inputs by core/readings/derive.ts.
  */
 import type {
-  Area, AreaInput, CorrectionInput, LimitSet, LimitSetInput, Meter, MeterInput, Reading, ReadingAck,
-  ReadingConflict, ReadingInput, Round, RoundInput, RoundSummary, SetupBundle, Site, SiteInput, Skip,
-  SkipInput, Spot, SpotInput,
+  Area, AreaInput, CorrectionInput, FollowUp, FollowUpClose, FollowUpEdit, FollowUpInput, FollowUpReopen, FollowUpWithEvents,
+  LimitSet, LimitSetInput, Meter, MeterInput, PlanInfo, Reading, ReadingAck, ReadingConflict, ReadingInput, Round, RoundInput,
+  RoundSummary, SetupBundle, Site, SiteExport, SiteInput, Skip, SkipInput, Spot, SpotInput, SpotPosition,
 } from '../../core/schemas';
+import type { DistanceUnit } from '../../core/units/distance';
+import type { Polarity, ReadingUnit } from '../../core/units/field';
 
 export interface StoreHealth {
   kind: string;
@@ -30,6 +32,87 @@ export interface StoreHealth {
 export interface RoundFinishInput {
   endedAt: string;
   notes?: string | undefined;
+}
+
+/**
+ * A current, not deleted reading revision as the review, the trend and the CSV
+ * export read it: the stored inputs its verdict and estimate need, nothing derived.
+ */
+export interface LeanReading {
+  id: string;
+  spotId: string;
+  roundId: string;
+  meterId: string;
+  takenAt: string;
+  value: number;
+  unit: ReadingUnit;
+  polarity: Polarity;
+  distanceValue: number;
+  distanceUnit: DistanceUnit;
+  distanceUncertaintyM: number | null;
+  groundBehindValue: number | null;
+  groundBehindUnit: DistanceUnit | null;
+  meterCalibratedDistanceM: number | null;
+  meterCalibrationDue: string;
+  /** The reading's relative humidity, else its round's, else null. */
+  rhPercent: number | null;
+}
+
+/** A span of time [startMs, endMs), ms since the epoch: a site week. */
+export interface TimeWindow {
+  startMs: number;
+  endMs: number;
+}
+
+/** One week summarised (kept as a cache for past weeks): per spot and for the whole site. */
+export interface WeekAggregate extends TimeWindow {
+  readings: number;
+  /** Median RH of the week's readings (the reading's, else its round's). */
+  medianRhPercent: number | null;
+  spots: Map<string, { readings: number; medianAbsFieldVPerM: number; maxAbsFieldVPerM: number; medianRhPercent: number | null }>;
+}
+
+/** What the weekly review reads, from one snapshot. */
+export interface ReviewData {
+  setup: SetupBundle;
+  /** The week's current readings, all spots. */
+  readings: LeanReading[];
+  /** Aggregates of the given history weeks, oldest first. */
+  history: WeekAggregate[];
+  /** Rounds started in the week, and their skips. */
+  rounds: Round[];
+  skips: Skip[];
+  /** Open follow-ups of the site. */
+  openFollowUps: FollowUp[];
+}
+
+export interface TrendData {
+  setup: SetupBundle;
+  spot: Spot;
+  area: Area;
+  /** The spot's current readings in the range, oldest first. */
+  readings: LeanReading[];
+}
+
+/** One stored revision with everything the readings CSV shows beside it. */
+export interface ExportedReading extends LeanReading {
+  temperatureC: number | null;
+  readingRhPercent: number | null;
+  roundRhPercent: number | null;
+  zeroed: boolean;
+  note: string;
+  surveyor: string;
+  meterSerial: string;
+  supersedesId: string | null;
+  supersededById: string | null;
+  correctionReason: string | null;
+  deleted: { reason: string; at: string } | null;
+}
+
+/** An import of readings made elsewhere: rounds (identical retries are harmless), then readings, in ONE transaction. */
+export interface ReadingImportBatch {
+  rounds: { input: RoundInput; endedAt: string }[];
+  readings: ReadingInput[];
 }
 
 export interface Store {
@@ -101,4 +184,45 @@ export interface Store {
   tombstoneReading(id: string, reason: string, opts?: { at?: string }): Promise<Reading>;
   /** Newest first. */
   listConflicts(): Promise<ReadingConflict[]>;
+
+  // ---------- follow-ups (issue 4) ----------
+  /** opts.at: the time to record (the demo loader writes history); default now. */
+  createFollowUp(input: FollowUpInput, opts?: { at?: string }): Promise<FollowUpWithEvents>;
+  getFollowUp(id: string): Promise<FollowUpWithEvents | null>;
+  editFollowUp(id: string, edit: FollowUpEdit): Promise<FollowUpWithEvents>;
+  /** Conflict when already closed, or when the verifying reading is not a current reading of the spot, taken after opening, within limits. */
+  closeFollowUp(id: string, close: FollowUpClose, opts?: { at?: string }): Promise<FollowUpWithEvents>;
+  reopenFollowUp(id: string, reopen: FollowUpReopen): Promise<FollowUpWithEvents>;
+  /** Null for an unknown spot / site. */
+  listSpotFollowUps(spotId: string, status: 'open' | 'closed' | 'all'): Promise<FollowUp[] | null>;
+  listSiteFollowUps(siteId: string, status: 'open' | 'closed' | 'all'): Promise<FollowUp[] | null>;
+
+  // ---------- review and trend (issue 4) ----------
+  /** Null for an unknown site. Past history weeks are summarised once and kept (see migration 0004). */
+  reviewData(siteId: string, q: { week: TimeWindow; history: TimeWindow[]; timeZone: string; nowMs: number }): Promise<ReviewData | null>;
+  /** Null for an unknown spot. fromMs null: from the first reading. */
+  trendData(spotId: string, fromMs: number | null, toMs: number): Promise<TrendData | null>;
+
+  // ---------- floor plans, positions, labels (issue 4) ----------
+  /** Not-found for an unknown area. */
+  putAreaPlan(areaId: string, plan: { contentType: PlanInfo['contentType']; bytes: Buffer; width: number | null; height: number | null; sha256: string }): Promise<PlanInfo>;
+  /** Null when the area is unknown; plan null when it has none. */
+  getAreaPlan(areaId: string): Promise<{ plan: { info: PlanInfo; bytes: Buffer } | null } | null>;
+  deleteAreaPlan(areaId: string): Promise<boolean>;
+  setSpotPosition(spotId: string, position: { x: number; y: number } | null): Promise<SpotPosition>;
+  /** Null for an unknown area. */
+  areaPins(areaId: string): Promise<{ plan: PlanInfo | null; pins: { spotId: string; code: string; name: string; position: { x: number; y: number } | null; latest: Reading | null }[] } | null>;
+  /** Case-insensitive; null when the site has no such code. */
+  getSpotByCode(siteId: string, code: string): Promise<Spot | null>;
+
+  // ---------- data in and out (issue 4) ----------
+  /** Every revision taken in [fromMs, toMs) (superseded and deleted ones too), oldest first; null for an unknown site. */
+  exportReadings(siteId: string, fromMs: number | null, toMs: number | null): Promise<{ setup: SetupBundle; readings: ExportedReading[] } | null>;
+  /** Which of these reading ids are stored. */
+  existingReadingIds(ids: string[]): Promise<Set<string>>;
+  /** Rounds and readings in ONE transaction: all or nothing. */
+  importReadings(batch: ReadingImportBatch): Promise<{ acks: ReadingAck[]; roundsCreated: number }>;
+  exportSite(siteId: string): Promise<SiteExport | null>;
+  /** Conflict when any id exists already; one transaction. Answers row counts. */
+  importSite(data: SiteExport): Promise<Record<string, number>>;
 }

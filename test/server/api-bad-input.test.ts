@@ -24,6 +24,15 @@ afterAll(async () => {
   await srv.close();
 });
 
+let followUpId: string;
+beforeAll(async () => {
+  followUpId = (await call(srv.baseUrl, 'POST', '/api/follow-ups', { spotId: ids.spotIds[0], findingClass: 'observation', action: 'Check the mat' })).body.id;
+});
+const importValid = () => ({
+  csv: 'spot,time,value\nW-1,2026-01-01 10:00,5', mapping: { spot: 0, takenAt: 1, value: 2 },
+  defaults: { meterId: ids.meterId, unit: 'V/m', distance: { value: 1, unit: 'inch' }, surveyor: 'X' },
+});
+
 function expectEnvelope(r: ApiAnswer, status: number, code: string) {
   expect(r.status).toBe(status);
   expect(r.body).toEqual({ error: { code, message: expect.any(String), ...(r.body?.error?.fields ? { fields: expect.any(Array) } : {}) } });
@@ -210,6 +219,15 @@ const endpoints: Endpoint[] = [
   { method: 'POST', label: '/api/readings', path: () => '/api/readings', valid: () => ({ readings: [readingInput(roundId, ids.spotIds[1]!, ids.meterId), readingInput(roundId, ids.spotIds[2]!, ids.meterId)] }) },
   { method: 'POST', label: '/api/readings/:id/corrections', path: () => `/api/readings/${newId()}/corrections`, valid: () => ({ ...readingInput(roundId, ids.spotIds[1]!, ids.meterId), reason: 'r' }) },
   { method: 'POST', label: '/api/readings/:id/tombstone', path: () => `/api/readings/${newId()}/tombstone`, valid: () => ({ reason: 'r' }) },
+  // issue 4
+  { method: 'POST', label: '/api/follow-ups', path: () => '/api/follow-ups', valid: () => ({ spotId: ids.spotIds[0], findingClass: 'observation', action: 'a', dueDate: '2030-01-01' }) },
+  { method: 'PUT', label: '/api/follow-ups/:id', path: () => `/api/follow-ups/${followUpId}`, valid: () => ({ action: 'b', assignee: 'c' }) },
+  { method: 'POST', label: '/api/follow-ups/:id/close', path: () => `/api/follow-ups/${followUpId}/close`, valid: () => ({ reason: 'done' }) },
+  { method: 'POST', label: '/api/follow-ups/:id/reopen', path: () => `/api/follow-ups/${followUpId}/reopen`, valid: () => ({ reason: 'again' }) },
+  { method: 'PUT', label: '/api/spots/:id/position', path: () => `/api/spots/${ids.spotIds[1]}/position`, valid: () => ({ x: 0.5, y: 0.25 }) },
+  { method: 'POST', label: '/api/sites/:id/import/readings/preview', path: () => `/api/sites/${ids.siteId}/import/readings/preview`, valid: importValid },
+  { method: 'POST', label: '/api/sites/:id/import/readings/commit', path: () => `/api/sites/${ids.siteId}/import/readings/commit`, valid: importValid },
+  { method: 'POST', label: '/api/import/site.json', path: () => '/api/import/site.json', valid: () => ({ format: 'chargewalk-site-export', version: 1, exportedAt: 'x', site: { id: newId(), name: 'S', timeZone: 'UTC', notes: '', createdAt: 'x', updatedAt: 'x' }, limitSets: [], areas: [], spots: [], meters: [], rounds: [], skips: [], readings: [], tombstones: [], conflicts: [], followUps: [], followUpEvents: [], plans: [], positions: [] }) },
 ];
 
 describe('property: random and malicious bodies on every write endpoint', () => {

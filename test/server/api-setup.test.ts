@@ -160,7 +160,7 @@ describe('route order, retire, set-up bundle, templates', () => {
     expect(again.body).toEqual(r.body);
     const setup = await call(srv.baseUrl, 'GET', `/api/sites/${ids.siteId}/setup`);
     expect(setup.status).toBe(200);
-    expect(Object.keys(setup.body).sort()).toEqual(['areas', 'limitSets', 'meters', 'site', 'spots']);
+    expect(Object.keys(setup.body).sort()).toEqual(['areas', 'followUps', 'limitSets', 'meters', 'site', 'spots']);
     expect(setup.body.spots.find((s: { id: string }) => s.id === spot.body.id).retiredAt).not.toBeNull();
     expect(setup.body.meters.length).toBeGreaterThanOrEqual(2);
     // a new round does not plan a retired spot

@@ -79,7 +79,12 @@ describe('OpenAPI document', () => {
         expect(ok.length, `${method} ${path}`).toBeGreaterThan(0);
         for (const s of ok) expect(op.responses[s]!.content, `${method} ${path} ${s}`).toBeDefined();
         expect(op.responses['500']).toBeDefined();
-        if (method === 'post' || method === 'put') expect(op.requestBody?.content['application/json']?.schema, `${method} ${path}`).toBeDefined();
+        if (method === 'post' || method === 'put') {
+          // JSON, or the raw media types a route declares (a floor plan image), each with a schema
+          const bodies = Object.values(op.requestBody?.content ?? {}) as { schema?: unknown }[];
+          expect(bodies.length, `${method} ${path}`).toBeGreaterThan(0);
+          for (const b of bodies) expect(b.schema, `${method} ${path}`).toBeDefined();
+        }
       }
     }
     collect(doc);

@@ -16,11 +16,20 @@ import type {
   Area, AreaInput, CorrectionInput, LimitSet, LimitSetInput, Meter, MeterInput, Reading, ReadingAck, ReadingConflict,
   ReadingInput, Round, RoundInput, RoundSummary, SetupBundle, Site, SiteInput, Skip, SkipInput, Spot, SpotInput,
 } from '../../../core/schemas';
+import type {
+  FollowUp, FollowUpClose, FollowUpEdit, FollowUpInput, FollowUpReopen, FollowUpWithEvents, PlanInfo, SiteExport, SpotPosition,
+} from '../../../core/schemas';
 import { StoreError, StoreStartupError } from '../errors';
-import type { RoundFinishInput, Store, StoreHealth } from '../store';
+import type {
+  ExportedReading, ReadingImportBatch, ReviewData, RoundFinishInput, Store, StoreHealth, TimeWindow, TrendData, WeekAggregate,
+} from '../store';
 import { nowIso, type Db } from './db';
 import { migrate } from './migrate';
 import * as areas from './repos/areas';
+import * as exchange from './repos/exchange';
+import * as followUps from './repos/follow-ups';
+import * as plans from './repos/plans';
+import * as review from './repos/review';
 import * as limitSets from './repos/limit-sets';
 import * as meters from './repos/meters';
 import * as readings from './repos/readings';
@@ -176,7 +185,13 @@ export class SqliteStore implements Store {
   listSites(): Promise<Site[]> { return this.read(() => sites.listSites(this.db)); }
   getSite(id: string): Promise<Site | null> { return this.read(() => sites.getSite(this.db, id)); }
   createSite(input: SiteInput): Promise<Site> { return this.write((now) => sites.insertSite(this.db, input, now)); }
-  updateSite(id: string, input: SiteInput): Promise<Site> { return this.write((now) => sites.updateSite(this.db, id, input, now)); }
+  updateSite(id: string, input: SiteInput): Promise<Site> {
+    return this.write((now) => {
+      const site = sites.updateSite(this.db, id, input, now);
+      review.invalidateSite(this.db, id); // weeks are the site's local weeks: a new time zone, new weeks
+      return site;
+    });
+  }
 
   getSetup(siteId: string): Promise<SetupBundle | null> {
     return this.read(() => {
@@ -188,6 +203,7 @@ export class SqliteStore implements Store {
         spots: spots.listSiteSpots(this.db, siteId),
         meters: meters.listMeters(this.db, siteId),
         limitSets: limitSets.listLimitSets(this.db, siteId),
+        followUps: followUps.listSiteFollowUps(this.db, siteId, 'open'),
       };
     });
   }
@@ -232,7 +248,11 @@ export class SqliteStore implements Store {
 
   // ---------- readings ----------
   async ingestReadings(inputs: ReadingInput[], opts: { receivedAt?: string } = {}): Promise<ReadingAck[]> {
-    const acks = await this.write((now) => readings.ingestReadings(this.db, inputs, opts.receivedAt ?? now));
+    const acks = await this.write((now) => {
+      const a = readings.ingestReadings(this.db, inputs, opts.receivedAt ?? now);
+      this.invalidateStored(inputs, a);
+      return a;
+    });
     // Committed. Answer each with the stored revision (for a conflict: the one that stays).
     const stored = await this.read(() => readings.getReadingsByIds(this.db, acks.map((a) => a.id)));
     return acks.map((a) => {
@@ -257,15 +277,151 @@ export class SqliteStore implements Store {
   }
 
   async correctReading(id: string, input: CorrectionInput, opts: { receivedAt?: string } = {}): Promise<{ reading: Reading; created: boolean }> {
-    const { created } = await this.write((now) => readings.correctReading(this.db, id, input, opts.receivedAt ?? now));
+    const { created } = await this.write((now) => {
+      const old = this.db.prepare('SELECT spot_id, taken_at FROM readings WHERE id = ?').get(id) as { spot_id: string; taken_at: string } | undefined;
+      const r = readings.correctReading(this.db, id, input, opts.receivedAt ?? now);
+      if (old) review.invalidateWeeks(this.db, old.spot_id, old.taken_at);
+      review.invalidateWeeks(this.db, input.spotId, input.takenAt);
+      return r;
+    });
     const reading = await this.read(() => readings.getReadingEntity(this.db, input.id));
     return { reading: reading!, created };
   }
 
   async tombstoneReading(id: string, reason: string, opts: { at?: string } = {}): Promise<Reading> {
-    await this.write((now) => readings.tombstoneReading(this.db, id, reason, opts.at ?? now));
+    await this.write((now) => {
+      readings.tombstoneReading(this.db, id, reason, opts.at ?? now);
+      const r = this.db.prepare('SELECT spot_id, taken_at FROM readings WHERE id = ?').get(id) as { spot_id: string; taken_at: string };
+      review.invalidateWeeks(this.db, r.spot_id, r.taken_at);
+    });
     return (await this.read(() => readings.getReadingEntity(this.db, id)))!;
   }
 
   listConflicts(): Promise<ReadingConflict[]> { return this.read(() => readings.listConflicts(this.db)); }
+
+  /** Drops the kept weekly aggregates of the weeks newly stored readings were taken in (in the caller's transaction). */
+  private invalidateStored(inputs: ReadingInput[], acks: { id: string; status: ReadingAck['status'] }[]): void {
+    const seen = new Set<string>();
+    acks.forEach((a, i) => {
+      const input = inputs[i];
+      if (a.status !== 'stored' || !input) return;
+      const key = `${input.spotId} ${input.takenAt.slice(0, 10)}`;
+      if (seen.has(key)) return;
+      seen.add(key);
+      review.invalidateWeeks(this.db, input.spotId, input.takenAt);
+    });
+  }
+
+  // ---------- follow-ups ----------
+  createFollowUp(input: FollowUpInput, opts: { at?: string } = {}): Promise<FollowUpWithEvents> {
+    return this.write((now) => followUps.insertFollowUp(this.db, input, opts.at ?? now));
+  }
+  getFollowUp(id: string): Promise<FollowUpWithEvents | null> { return this.read(() => followUps.getFollowUp(this.db, id)); }
+  editFollowUp(id: string, edit: FollowUpEdit): Promise<FollowUpWithEvents> { return this.write((now) => followUps.editFollowUp(this.db, id, edit, now)); }
+  closeFollowUp(id: string, close: FollowUpClose, opts: { at?: string } = {}): Promise<FollowUpWithEvents> {
+    return this.write((now) => followUps.closeFollowUp(this.db, id, close, opts.at ?? now));
+  }
+  reopenFollowUp(id: string, reopen: FollowUpReopen): Promise<FollowUpWithEvents> { return this.write((now) => followUps.reopenFollowUp(this.db, id, reopen, now)); }
+  listSpotFollowUps(spotId: string, status: 'open' | 'closed' | 'all'): Promise<FollowUp[] | null> {
+    return this.read(() => (spots.spotSite(this.db, spotId) === null ? null : followUps.listSpotFollowUps(this.db, spotId, status)));
+  }
+  listSiteFollowUps(siteId: string, status: 'open' | 'closed' | 'all'): Promise<FollowUp[] | null> {
+    return this.read(() => (sites.getSite(this.db, siteId) === null ? null : followUps.listSiteFollowUps(this.db, siteId, status)));
+  }
+
+  // ---------- review and trend ----------
+  async reviewData(siteId: string, q: { week: TimeWindow; history: TimeWindow[]; timeZone: string; nowMs: number }): Promise<ReviewData | null> {
+    const complete = q.history.filter((w) => w.endMs <= q.nowMs);
+    const missing = await this.read(() => {
+      if (sites.getSite(this.db, siteId) === null) return null;
+      const cached = review.cachedWeeks(this.db, siteId, q.timeZone, complete, false);
+      return complete.filter((w) => !cached.has(w.startMs));
+    });
+    if (missing === null) return null;
+    // Past weeks are summarised once (a write), then read from the cache.
+    if (missing.length > 0) await this.write((now) => review.fillWeekCache(this.db, siteId, q.timeZone, missing, now));
+    return this.read(() => {
+      const setup = this.readSetup(siteId);
+      if (!setup) return null;
+      const cached = review.cachedWeeks(this.db, siteId, q.timeZone, complete);
+      const history: WeekAggregate[] = q.history.map((w) => cached.get(w.startMs) ?? review.aggregateWeek(w, review.siteWeekReadings(this.db, siteId, w)));
+      const { rounds: weekRounds, skips } = review.roundsInWindow(this.db, siteId, q.week);
+      return {
+        setup, readings: review.siteWeekReadings(this.db, siteId, q.week), history, rounds: weekRounds, skips,
+        openFollowUps: setup.followUps ?? [],
+      };
+    });
+  }
+
+  trendData(spotId: string, fromMs: number | null, toMs: number): Promise<TrendData | null> {
+    return this.read(() => {
+      const spot = spots.getSpot(this.db, spotId);
+      if (!spot) return null;
+      const area = areas.getArea(this.db, spot.areaId)!;
+      const limitSet = area.limitSetId ? limitSets.getLimitSet(this.db, area.limitSetId) : null;
+      // Only what the spot's verdicts need: its area, that area's limit set, the site's meters.
+      const setup: SetupBundle = {
+        site: sites.getSite(this.db, area.siteId)!, areas: [area], spots: [spot], meters: meters.listMeters(this.db, area.siteId),
+        limitSets: limitSet ? [limitSet] : [],
+      };
+      return { setup, spot, area, readings: review.spotRangeReadings(this.db, spotId, fromMs, toMs) };
+    });
+  }
+
+  /** The set-up bundle inside the caller's read. */
+  private readSetup(siteId: string): SetupBundle | null {
+    const site = sites.getSite(this.db, siteId);
+    if (!site) return null;
+    return {
+      site, areas: areas.listAreas(this.db, siteId), spots: spots.listSiteSpots(this.db, siteId), meters: meters.listMeters(this.db, siteId),
+      limitSets: limitSets.listLimitSets(this.db, siteId), followUps: followUps.listSiteFollowUps(this.db, siteId, 'open'),
+    };
+  }
+
+  // ---------- floor plans, positions, labels ----------
+  putAreaPlan(areaId: string, plan: plans.PlanToStore): Promise<PlanInfo> { return this.write((now) => plans.putPlan(this.db, areaId, plan, now)); }
+  getAreaPlan(areaId: string): Promise<{ plan: { info: PlanInfo; bytes: Buffer } | null } | null> {
+    return this.read(() => (areas.areaSite(this.db, areaId) === null ? null : { plan: plans.getPlanBytes(this.db, areaId) }));
+  }
+  deleteAreaPlan(areaId: string): Promise<boolean> { return this.write(() => plans.deletePlan(this.db, areaId)); }
+  setSpotPosition(spotId: string, position: { x: number; y: number } | null): Promise<SpotPosition> {
+    return this.write((now) => plans.setSpotPosition(this.db, spotId, position, now));
+  }
+  areaPins(areaId: string): Promise<{ plan: PlanInfo | null; pins: plans.PinData[] } | null> {
+    return this.read(() => (areas.areaSite(this.db, areaId) === null ? null : { plan: plans.getPlanInfo(this.db, areaId), pins: plans.areaPins(this.db, areaId) }));
+  }
+  getSpotByCode(siteId: string, code: string): Promise<Spot | null> {
+    return this.read(() => {
+      const r = this.db.prepare('SELECT id FROM spots WHERE site_id = ? AND code = ?').get(siteId, code) as { id: string } | undefined;
+      return r ? spots.getSpot(this.db, r.id) : null;
+    });
+  }
+
+  // ---------- data in and out ----------
+  exportReadings(siteId: string, fromMs: number | null, toMs: number | null): Promise<{ setup: SetupBundle; readings: ExportedReading[] } | null> {
+    return this.read(() => {
+      const setup = this.readSetup(siteId);
+      return setup ? { setup, readings: exchange.exportReadingRows(this.db, siteId, fromMs, toMs) } : null;
+    });
+  }
+  existingReadingIds(ids: string[]): Promise<Set<string>> { return this.read(() => exchange.existingReadingIds(this.db, ids)); }
+  async importReadings(batch: ReadingImportBatch): Promise<{ acks: ReadingAck[]; roundsCreated: number }> {
+    return this.write((now) => {
+      let roundsCreated = 0;
+      batch.rounds.forEach((r, i) => {
+        try {
+          if (rounds.insertRound(this.db, r.input, now).created) roundsCreated++;
+          rounds.finishRound(this.db, r.input.id, { endedAt: r.endedAt });
+        } catch (e) {
+          if (e instanceof StoreError) throw new StoreError(e.code, `import round ${i + 1} (${r.input.surveyor}, ${r.input.startedAt.slice(0, 10)}): ${e.message}`);
+          throw e;
+        }
+      });
+      const acks = readings.ingestReadings(this.db, batch.readings, now);
+      this.invalidateStored(batch.readings, acks);
+      return { acks, roundsCreated };
+    });
+  }
+  exportSite(siteId: string): Promise<SiteExport | null> { return this.read(() => exchange.exportSite(this.db, siteId, nowIso())); }
+  importSite(data: SiteExport): Promise<Record<string, number>> { return this.write(() => exchange.importSite(this.db, data)); }
 }
