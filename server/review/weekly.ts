@@ -160,8 +160,10 @@ export async function weeklyReview(store: Store, siteId: string, isoWeek: string
       worstText: formatSi(worst, 'V/m'), medianText: formatSi(med, 'V/m'),
     });
   }
-  spots.sort((x, y) => (y.worstRatioToAlarm ?? -1) - (x.worstRatioToAlarm ?? -1)
-    || LEVEL_RANK[y.worstLevel] - LEVEL_RANK[x.worstLevel]
+  // Severity: the verdict level first (an alarm outranks any warn, a warn any ok, whatever
+  // the limit sets), then the worst ratio to the alarm level, exceedances and trend.
+  spots.sort((x, y) => LEVEL_RANK[y.worstLevel] - LEVEL_RANK[x.worstLevel]
+    || (y.worstRatioToAlarm ?? -1) - (x.worstRatioToAlarm ?? -1)
     || y.exceedances.alarm - x.exceedances.alarm
     || y.exceedances.warn - x.exceedances.warn
     || trendScore(y.trend) - trendScore(x.trend)

@@ -288,9 +288,15 @@ describe('weekly review', () => {
     expect(rev.caution).toBe(CAUTION);
     expect(rev.spots.length).toBeGreaterThanOrEqual(20);
     expect(rev.spots.map((s: { rank: number }) => s.rank)).toEqual(rev.spots.map((_: unknown, i: number) => i + 1));
-    // ranked by the worst ratio to an alarm level
-    const ratios = rev.spots.map((s: { worstRatioToAlarm: number | null }) => s.worstRatioToAlarm ?? -1);
-    expect([...ratios].sort((a: number, b: number) => b - a)).toEqual(ratios);
+    // ranked by verdict level, then by the worst ratio to an alarm level within a level
+    const levelRank: Record<string, number> = { alarm: 2, warn: 1, ok: 0 };
+    const keys = rev.spots.map((s: { worstLevel: string; worstRatioToAlarm: number | null }) => [levelRank[s.worstLevel]!, s.worstRatioToAlarm ?? -1] as const);
+    for (let i = 1; i < keys.length; i++) {
+      const [l0, r0] = keys[i - 1]!;
+      const [l1, r1] = keys[i]!;
+      expect(l0 > l1 || (l0 === l1 && r0 >= r1)).toBe(true);
+    }
+    expect(new Set(keys.map((k: readonly [number, number]) => k[0])).size).toBeGreaterThan(1);
     const top = rev.spots[0];
     expect(top.worstLevel).toBe('alarm');
     expect(top.worstRatioToAlarm).toBeGreaterThanOrEqual(1);
