@@ -6,6 +6,7 @@ import './ui/review.css';
 import { route, startRouter } from './router';
 import { mountTopbar } from './ui/topbar';
 import { startSync } from './offline/sync';
+import { keepStorage } from './offline/storage';
 import { homePage } from './pages/home';
 import { roundStartPage } from './pages/round-start';
 import { roundPage } from './pages/round';
@@ -43,6 +44,7 @@ route('/data', dataPage);
 mountTopbar(document.getElementById('topbar')!);
 startRouter();
 startSync();
+void keepStorage(); // the outbox must survive a full tablet: ask for persistent storage
 
 // Not under the Vite dev server (import.meta.hot): a worker there would cache dev modules.
 if ('serviceWorker' in navigator && !import.meta.hot) {

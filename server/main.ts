@@ -34,14 +34,7 @@ async function main(): Promise<void> {
     else console.error(e instanceof Error ? e.message : String(e));
     process.exit(1);
   }
-  console.log(`chargewalk serving ${running.url} (database ${config.dbPathGiven})`);
-  if (config.host === '0.0.0.0' || config.host === '::') {
-    const lan = lanAddresses(running.port);
-    if (lan.length) console.log(`  on a tablet in the same network: ${lan.join('  ')}`);
-  }
-  if (!running.clientBuilt) {
-    console.log(`  the tablet client is not built (${config.clientDir}/index.html is missing): the API works; run npm run build, or npm start which builds it`);
-  }
+  // Signal handlers before the 'serving' line: whoever waits for that line may stop us at once.
   let stopping = false;
   const stop = (signal: string) => {
     if (stopping) return;
@@ -54,6 +47,14 @@ async function main(): Promise<void> {
   };
   process.on('SIGTERM', () => stop('SIGTERM'));
   process.on('SIGINT', () => stop('SIGINT'));
+  console.log(`chargewalk serving ${running.url} (database ${config.databaseUrl !== undefined ? `PostgreSQL ${running.store.location}` : config.dbPathGiven})`);
+  if (config.host === '0.0.0.0' || config.host === '::') {
+    const lan = lanAddresses(running.port);
+    if (lan.length) console.log(`  on a tablet in the same network: ${lan.join('  ')}`);
+  }
+  if (!running.clientBuilt) {
+    console.log(`  the tablet client is not built (${config.clientDir}/index.html is missing): the API works; run npm run build, or npm start which builds it`);
+  }
 }
 
 await main();

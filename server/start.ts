@@ -12,11 +12,14 @@ import type { Config } from './config';
 import { loadDemo } from './demo';
 import { clientIsBuilt } from './http/static-client';
 import { removePidFile, writePidFile } from './pidfile';
-import { openSqliteStore, type SqliteStore } from './store/sqlite';
+import { openPgStore } from './store/postgres';
+import { openSqliteStore } from './store/sqlite';
+import type { Store } from './store/store';
 
 export interface Running {
   server: Server;
-  store: SqliteStore;
+  /** SqliteStore by default; PgStore when config.databaseUrl is set. */
+  store: Store;
   port: number;
   /** http://localhost:PORT */
   url: string;
@@ -36,8 +39,11 @@ function packageVersion(): string {
 
 export async function startChargewalk(config: Config, opts: { log?: (m: string) => void } = {}): Promise<Running> {
   const log = opts.log ?? ((m: string) => console.log(m));
-  mkdirSync(dirname(config.dbPath), { recursive: true });
-  const store = openSqliteStore({ path: config.dbPath, synchronous: config.synchronous, check: config.check });
+  const pg = config.databaseUrl !== undefined;
+  if (!pg) mkdirSync(dirname(config.dbPath), { recursive: true });
+  const store: Store = pg
+    ? await openPgStore({ url: config.databaseUrl! })
+    : openSqliteStore({ path: config.dbPath, synchronous: config.synchronous, check: config.check });
   let demoLoaded = false;
   try {
     if (config.demo && await store.isEmpty()) {
@@ -62,7 +68,7 @@ export async function startChargewalk(config: Config, opts: { log?: (m: string) 
   // Slow or idle clients must not hold a shutdown forever.
   server.requestTimeout = 60_000;
   server.headersTimeout = 20_000;
-  writePidFile(config.dbPath);
+  if (!pg) writePidFile(config.dbPath);
   const port = (server.address() as AddressInfo).port;
   let closing: Promise<void> | null = null;
   return {
@@ -75,7 +81,7 @@ export async function startChargewalk(config: Config, opts: { log?: (m: string) 
           setTimeout(() => server.closeAllConnections(), 5_000).unref();
         });
         await store.close();
-        removePidFile(config.dbPath);
+        if (!pg) removePidFile(config.dbPath);
       })();
       return closing;
     },

@@ -8,6 +8,7 @@ import { fmtDateTime } from '../ui/format';
 import { loadOutbox, onOutboxChange, outboxItems, retryItem, syncStateOf } from '../offline/outbox';
 import { sendNow, syncStatus } from '../offline/sync';
 import type { OutboxItem } from '../offline/types';
+import { keepStorage, STORAGE_MODE_TEXT, type StorageMode } from '../offline/storage';
 
 const KIND_LABEL: Record<OutboxItem['kind'], string> = {
   round: 'Round start', reading: 'Reading', skip: 'Skipped spot', finish: 'Round finish', correction: 'Correction', tombstone: 'Deletion', 'follow-up-close': 'Follow-up closed',
@@ -28,6 +29,7 @@ export async function outboxPage(root: HTMLElement): Promise<() => void> {
   await loadOutbox();
   const body = h('div', { class: 'page outbox' });
   root.append(body);
+  let storage: StorageMode | null = null;
   const render = () => {
     const items = [...outboxItems()].sort((a, b) => (a.seq ?? 0) - (b.seq ?? 0));
     const attention = items.filter((i) => i.status === 'rejected' || i.status === 'conflict');
@@ -37,6 +39,7 @@ export async function outboxPage(root: HTMLElement): Promise<() => void> {
       h('div', { class: 'row between wrap' }, h('h1', null, 'Outbox'),
         h('button', { type: 'button', class: 'btn btn-primary', onclick: () => sendNow(), disabled: waiting.length === 0 || undefined }, 'Send now')),
       h('p', { class: 'muted' }, s.lastError ? `Last attempt failed: ${s.lastError}` : s.lastSuccessAt ? `Last sent ${fmtDateTime(new Date(s.lastSuccessAt).toISOString())}` : ''),
+      storage ? h('p', { class: 'muted', dataset: { testid: 'storage-mode', mode: storage } }, STORAGE_MODE_TEXT[storage]) : null,
       h('section', { class: 'card' },
         h('h2', null, `Needs attention (${attention.length})`),
         attention.length === 0 ? h('p', { class: 'muted' }, 'Nothing refused by the server.') : h('ul', { class: 'list' }, attention.map((i) => h('li', { class: 'outbox-item' },
@@ -51,5 +54,6 @@ export async function outboxPage(root: HTMLElement): Promise<() => void> {
     );
   };
   render();
+  void keepStorage().then((m) => { storage = m; render(); });
   return onOutboxChange(render) as () => void;
 }

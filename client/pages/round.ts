@@ -8,7 +8,7 @@ import { z } from 'zod';
 import { h, replace } from '../ui/h';
 import { entryPanel, unitsForMeter } from '../ui/entry';
 import { openSheet, pickOne, toast } from '../ui/sheet';
-import { syncChip, verdictChip } from '../ui/verdict';
+import { flagChips, syncChip, verdictChip } from '../ui/verdict';
 import { fmtAsEntered, fmtDateTime, fmtDistance, fmtField, fmtTime } from '../ui/format';
 import { currentSetup } from '../app';
 import {
@@ -183,7 +183,7 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
       h('p', { class: 'eyebrow' }, `${index + 1} of ${route.length} · ${area?.name ?? ''}${area ? ` · ${area.zone !== null ? `zone ${area.zone}${area.gasGroup ? ` ${area.gasGroup}` : ''}` : AREA_KIND_LABEL[area.kind]}` : ''}`),
       h('h1', { class: 'spot-name', dataset: { testid: 'spot-name' } }, s.name),
       h('p', { class: 'spot-meta' }, h('span', { class: 'code' }, s.code), ` ${s.objectKind} · ${s.materialClass} · default ${fmtDistance(s.defaultDistance)} `,
-        h('a', { href: `#/spot/${s.id}`, class: 'link' }, 'spot history')));
+        h('a', { href: `#/spot/${s.id}`, class: 'link link-touch', dataset: { testid: 'spot-history' } }, 'spot history')));
     fuBanner.show(s.id);
     prevBtn.disabled = index === 0;
     nextBtn.disabled = index === route.length - 1;
@@ -219,6 +219,7 @@ export async function roundPage(root: HTMLElement, params: Record<string, string
       h('span', { class: 'r-field' }, fmtField(r.fieldVPerM)),
       verdictChip(r.verdict.level),
       r.meterCalibrationOverdue ? h('span', { class: 'chip cal-chip' }, 'meter overdue') : null,
+      ...flagChips(r.flags),
       !r.zeroed ? h('span', { class: 'chip chip-todo' }, 'not zeroed') : null,
       syncChip(sync.state, sync.message),
       r.note ? h('span', { class: 'r-note' }, r.note) : null);

@@ -84,7 +84,8 @@ export function spotTrendSection(spot: Spot): { el: HTMLElement; dispose(): void
   const chargeCanvas = h('canvas', { class: 'trend-canvas', 'aria-label': 'Estimated charge over time', role: 'img' });
   const chargeBox = h('div', { class: 'chart-box charge-box' }, chargeCanvas);
   const chargeImg = h('img', { class: 'chart-print', alt: `Estimated charge of ${spot.name}` });
-  const chargeWrap = h('div', { class: 'charge-wrap', hidden: true }, h('h3', null, 'Estimated charge'), chargeBox, chargeImg);
+  const chargeTitle = h('h3', null, 'Estimated charge');
+  const chargeWrap = h('div', { class: 'charge-wrap', hidden: true, dataset: { testid: 'trend-estimate' } }, chargeTitle, chargeBox, chargeImg);
   const status = h('p', { class: 'muted', dataset: { testid: 'trend-status' } }, 'Loading the trend…');
   const words = h('div', { class: 'trend-words', dataset: { testid: 'trend-words' } });
   const table = h('div', { class: 'trend-table-wrap' });
@@ -120,7 +121,7 @@ export function spotTrendSection(spot: Spot): { el: HTMLElement; dispose(): void
     if (!data) return;
     const d = data;
     const points = d.points.map((p) => ({
-      t: Date.parse(p.takenAt), fieldVPerM: p.fieldVPerM, level: p.level, rh: p.rhPercent ?? null, chargeC: p.chargeC ?? null,
+      t: Date.parse(p.takenAt), fieldVPerM: p.fieldVPerM, level: p.level, rh: p.rhPercent ?? null, chargeC: p.chargeC ?? null, sigma: p.surfaceChargeDensityCPerM2 ?? null,
     })).filter((p) => Number.isFinite(p.t));
     const now = Date.now();
     const span = RANGE_MS[range];
@@ -140,10 +141,14 @@ export function spotTrendSection(spot: Spot): { el: HTMLElement; dispose(): void
     if (!alive) return;
     chart = mod.drawTrendChart(canvas, cd, chart);
     img.src = chart.toBase64Image('image/png', 1);
-    const hasCharge = spot.model !== null && points.some((p) => p.chargeC !== null && Number.isFinite(p.chargeC));
+    const hasQ = spot.model !== null && points.some((p) => p.chargeC !== null && Number.isFinite(p.chargeC));
+    const hasSigma = !hasQ && spot.model !== null && points.some((p) => p.sigma !== null && Number.isFinite(p.sigma));
+    const hasCharge = hasQ || hasSigma;
     chargeWrap.hidden = !hasCharge;
+    chargeTitle.textContent = hasSigma ? 'Estimated surface charge density' : 'Estimated charge';
+    chargeCanvas.setAttribute('aria-label', hasSigma ? 'Estimated surface charge density over time' : 'Estimated charge over time');
     if (hasCharge) {
-      charge = mod.drawChargeChart(chargeCanvas, cd, charge);
+      charge = mod.drawChargeChart(chargeCanvas, cd, charge, hasSigma ? 'sigma' : 'charge');
       chargeImg.src = charge.toBase64Image('image/png', 1);
     } else { charge?.destroy(); charge = null; }
     replace(words,
@@ -157,16 +162,22 @@ export function spotTrendSection(spot: Spot): { el: HTMLElement; dispose(): void
 
   function renderTable(d: SpotTrend): void {
     const rows = [...d.points].sort((a, b) => b.takenAt.localeCompare(a.takenAt));
-    const hasCharge = rows.some((p) => p.chargeC !== null && p.chargeC !== undefined);
+    const hasQ = rows.some((p) => p.chargeC !== null && p.chargeC !== undefined);
+    const hasSigma = !hasQ && rows.some((p) => p.surfaceChargeDensityCPerM2 !== null && p.surfaceChargeDensityCPerM2 !== undefined);
+    const hasCharge = hasQ || hasSigma;
+    const estOf = (p: typeof rows[number]): string => {
+      const v = hasQ ? p.chargeC : p.surfaceChargeDensityCPerM2;
+      return v === null || v === undefined ? '—' : formatSi(v, hasQ ? 'C' : 'C/m²');
+    };
     replace(table, rows.length === 0 ? null : h('table', { class: 'table trend-table', dataset: { testid: 'trend-table' } },
       h('caption', null, `Readings, ${RANGE_WORDS[range]} (${rows.length})`),
-      h('thead', null, h('tr', null, h('th', null, 'When'), h('th', null, 'Field'), h('th', null, 'Verdict'), h('th', null, 'RH'), hasCharge ? h('th', null, 'Est. charge') : null)),
+      h('thead', null, h('tr', null, h('th', null, 'When'), h('th', null, 'Field'), h('th', null, 'Verdict'), h('th', null, 'RH'), hasCharge ? h('th', null, hasQ ? 'Est. charge' : 'Est. surface charge') : null)),
       h('tbody', null, rows.map((p) => h('tr', null,
         h('td', null, fmtDateTime(p.takenAt)),
         h('td', { class: 'num' }, fmtField(p.fieldVPerM)),
         h('td', null, verdictChip(p.level)),
         h('td', { class: 'num' }, p.rhPercent === null || p.rhPercent === undefined ? '—' : `${p.rhPercent} %`),
-        hasCharge ? h('td', { class: 'num' }, p.chargeC === null || p.chargeC === undefined ? '—' : formatSi(p.chargeC, 'C')) : null)))));
+        hasCharge ? h('td', { class: 'num' }, estOf(p)) : null)))));
   }
 
   renderPicker();

@@ -9,7 +9,7 @@ import { h, replace } from '../ui/h';
 import { entryPanel } from '../ui/entry';
 import { readingEstimateBlock } from '../ui/reading-estimate';
 import { openSheet, toast } from '../ui/sheet';
-import { syncChip, verdictChip } from '../ui/verdict';
+import { flagChips, syncChip, verdictChip } from '../ui/verdict';
 import { fmtAsEntered, fmtDateTime, fmtDistance, fmtField } from '../ui/format';
 import { currentSetup } from '../app';
 import { correctReading, deleteReading, getRound, loadSpotHistory, readingsOfSpot } from '../data';
@@ -163,7 +163,7 @@ function revisionRow(r: LocalReading, bundle: SetupBundle, surveyors: Map<string
   return h('div', { class: `rev${isHead ? ' rev-head' : ''}`, dataset: { readingId: r.id, state: r.deleted ? 'deleted' : superseded ? 'superseded' : 'current' } },
     h('p', { class: 'rev-when' }, fmtDateTime(r.takenAt), ' ', syncChip(sync.state, sync.message),
       r.meterCalibrationOverdue ? h('span', { class: 'chip cal-chip' }, 'meter overdue') : null,
-      ...r.flags.map((f) => h('span', { class: 'chip chip-flag', title: f.message }, f.message || f.code))),
+      ...flagChips(r.flags, { long: true })),
     main,
     readingEstimateBlock(r, bundle),
     h('p', { class: 'rev-meta' },

@@ -4,7 +4,7 @@
  * the server's own summary is shown beside it when it answers.
  */
 import { h, replace } from '../ui/h';
-import { verdictChip, syncChip } from '../ui/verdict';
+import { flagChips, verdictChip, syncChip } from '../ui/verdict';
 import { fmtAsEntered, fmtDateTime, fmtDistance, fmtField } from '../ui/format';
 import { currentSetup } from '../app';
 import { fetchRound, fetchRoundReadings, getRound, readingsOfRound, skipsOfRound } from '../data';
@@ -86,7 +86,7 @@ export async function summaryPage(root: HTMLElement, params: Record<string, stri
             const s = readingSyncState(r.id);
             return h('tr', null,
               h('td', null, h('a', { class: 'link', href: `#/spot/${r.spotId}` }, spotName(r.spotId))),
-              h('td', null, fmtAsEntered(r), r.meterCalibrationOverdue ? h('span', { class: 'chip cal-chip' }, 'meter overdue') : null),
+              h('td', null, fmtAsEntered(r), r.meterCalibrationOverdue ? h('span', { class: 'chip cal-chip' }, 'meter overdue') : null, ...flagChips(r.flags)),
               h('td', null, fmtDistance(r.distance)),
               h('td', null, fmtField(r.fieldVPerM)),
               h('td', null, verdictChip(r.verdict.level)),

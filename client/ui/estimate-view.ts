@@ -11,6 +11,7 @@ import { verdictChip } from './verdict';
 import { formatSi, formatSignificant } from '../../core/units/format';
 import { CAUTION, type Verdict } from '../../core/hazard/verdicts';
 import { CENTRE_DISTANCE_MODELS, type EstimateModel, type EstimateResponse } from '../../core/schemas/estimate';
+import { webChargeCurrentA } from '../../core/physics/models/sheet';
 import type { EstimateNote, SpotEstimateContext } from '../../core/readings/estimate';
 
 export const MODEL_LABEL: Record<EstimateModel, string> = {
@@ -97,6 +98,21 @@ export function inputsText(model: EstimateModel, spot: SpotEstimateContext | nul
 
 const RANK: Record<Verdict['level'], number> = { 'not-applicable': -1, ok: 0, warn: 1, alarm: 2 };
 
+/**
+ * The charge current a moving web carries off, I = sigma w v (PHYSICS.md "Moving web"), in words;
+ * null unless the estimate has a surface charge density and the width and a running line speed are known.
+ * @example webCurrentText(sheetEstimate(5e-6), { widthM: 1.5, speedMPerS: 4 }) // 'Charge carried off by the moving web: I = σ·w·v = 30 µA ...'
+ */
+export function webCurrentText(est: EstimateResponse, web: EstimateViewInput['webCurrent']): string | null {
+  const sigma = est.surfaceChargeDensityCPerM2;
+  const w = web?.widthM;
+  const v = web?.speedMPerS;
+  if (typeof sigma !== 'number' || !w || !v || v <= 0) return null;
+  const i = webChargeCurrentA(sigma, w, v);
+  return `Charge carried off by the moving web: I = σ·w·v = ${nb(formatSi(i, 'A'))} (width ${nb(formatSi(w, 'm'))}, line speed ${formatSignificant(v, 3)} m/s): `
+    + 'the current a neutraliser must return; it makes lines at different speeds comparable. A web charged + on one face and − on the other reads near zero yet can discharge.';
+}
+
 /** The applicable verdicts, worst first. */
 export function applicable(hazards: readonly Verdict[] | undefined): Verdict[] {
   return (hazards ?? []).filter((v) => v.level !== 'not-applicable').sort((a, b) => RANK[b.level] - RANK[a.level]);
@@ -121,6 +137,8 @@ export interface EstimateViewInput {
   hazards?: readonly Verdict[];
   spot: SpotEstimateContext | null;
   reading: { fieldVPerM: number; distanceM: number; potentialV?: number | null };
+  /** A moving web: its width (spot geometry) and the line speed (reading's process state); gives I = sigma w v. */
+  webCurrent?: { widthM: number | null | undefined; speedMPerS: number | null | undefined } | null;
   /** Where the Sweep link goes (omitted: no link). */
   sweepHref?: string;
   /** Unfold the details at first. */
@@ -155,6 +173,8 @@ export function estimateBlock(inp: EstimateViewInput): HTMLElement | null {
     const others = QUANTITY.filter((q) => q.label !== head?.label && typeof est[q.key] === 'number')
       .map((q) => `${q.label} ${fmtWithInterval(est[q.key] as number, est.interval[q.key], q.unit)}`);
     if (others.length) details.push(h('ul', { class: 'est-quantities' }, others.map((t) => h('li', null, t))));
+    const web = webCurrentText(est, inp.webCurrent);
+    if (web) details.push(h('p', { class: 'est-web-current', dataset: { testid: 'web-current' } }, web));
     details.push(h('p', { class: 'est-method muted' }, `Interval: ${est.intervalMethod}`));
     if (est.warnings.length) {
       details.push(h('ul', { class: 'est-warnings', dataset: { testid: 'estimate-warnings' } }, est.warnings.map((w) =>

@@ -22,7 +22,8 @@ export function readingEstimateBlock(r: Reading, bundle: SetupBundle): HTMLEleme
     }
   }
   const potentialV = isSurfaceVoltageUnit(r.unit) ? (r.polarity === '-' ? -1 : 1) * r.value * VOLTS_PER_SURFACE_VOLTAGE_UNIT[r.unit] : null;
-  const el = estimateBlock({ estimate, note: estimateNote, hazards, spot, reading: { fieldVPerM: r.fieldVPerM, distanceM: r.distanceM, potentialV } });
+  const webCurrent = spot.model === 'sheet' || spot.model === 'layer-on-ground' ? { widthM: spot.geometry?.widthM, speedMPerS: r.process?.lineSpeedMPerS } : null;
+  const el = estimateBlock({ estimate, note: estimateNote, hazards, spot, webCurrent, reading: { fieldVPerM: r.fieldVPerM, distanceM: r.distanceM, potentialV } });
   el?.classList.add('rev-estimate');
   return el;
 }

@@ -22,6 +22,8 @@ export interface TrendChartPoint {
   level: 'ok' | 'warn' | 'alarm';
   rh: number | null;
   chargeC: number | null;
+  /** Estimated surface charge density, C/m^2 (plotted when the model gives no charge: sheet, layer on ground). */
+  sigma?: number | null;
 }
 
 export interface TrendChartData {
@@ -160,10 +162,13 @@ function formatTick(v: number): string {
 }
 
 /** The estimated charge (magnitude) on its own axis, with the same time range. */
-export function drawChargeChart(canvas: HTMLCanvasElement, d: TrendChartData, previous: Chart | null): Chart {
+export function drawChargeChart(canvas: HTMLCanvasElement, d: TrendChartData, previous: Chart | null, quantity: 'charge' | 'sigma' = 'charge'): Chart {
   previous?.destroy();
-  const pts = d.points.filter((p) => p.chargeC !== null && Number.isFinite(p.chargeC));
-  const cs = chargeScale(Math.max(...pts.map((p) => Math.abs(p.chargeC!)), 1e-12));
+  const valueOf = (p: TrendChartPoint): number | null => (quantity === 'charge' ? p.chargeC : p.sigma ?? null);
+  const unit = quantity === 'charge' ? 'C' : 'C/m²';
+  const pts = d.points.filter((p) => { const v = valueOf(p); return v !== null && Number.isFinite(v); }).map((p) => ({ ...p, chargeC: valueOf(p) }));
+  const base = chargeScale(Math.max(...pts.map((p) => Math.abs(p.chargeC!)), 1e-12));
+  const cs = quantity === 'charge' ? base : { div: base.div, unit: `${base.unit}/m²` };
   const span = Math.max(d.toMs - d.fromMs, DAY);
   const datasets = (['ok', 'warn', 'alarm'] as const).map((level) => ({
     type: 'scatter' as const, label: `${LABEL[level]}`,
@@ -178,14 +183,14 @@ export function drawChargeChart(canvas: HTMLCanvasElement, d: TrendChartData, pr
       animation: false, responsive: true, maintainAspectRatio: false, parsing: false,
       scales: {
         x: { type: 'linear', min: d.fromMs, max: d.toMs, ticks: { color: INK, font: tickFont, maxTicksLimit: 7, callback: (v) => dateTick(Number(v), span) }, grid: { color: '#e0e4ea' } },
-        y: { type: 'linear', min: 0, title: { display: true, text: `|estimated charge|, ${cs.unit}`, font, color: INK }, ticks: { color: INK, font: tickFont, maxTicksLimit: 6 }, grid: { color: '#d3d9e0' } },
+        y: { type: 'linear', min: 0, title: { display: true, text: quantity === 'charge' ? `|estimated charge|, ${cs.unit}` : `|σ|, ${cs.unit}`, font, color: INK }, ticks: { color: INK, font: tickFont, maxTicksLimit: 6 }, grid: { color: '#d3d9e0' } },
       },
       plugins: {
         legend: { display: false },
         tooltip: {
           callbacks: {
             title: (items) => (items[0] ? new Date(items[0].parsed.x ?? 0).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' }) : ''),
-            label: (it) => `${it.dataset.label ?? ''} ${formatSi((it.raw as { signed?: number }).signed ?? 0, 'C')}`,
+            label: (it) => `${it.dataset.label ?? ''} ${formatSi((it.raw as { signed?: number }).signed ?? 0, unit)}`,
           },
         },
       },

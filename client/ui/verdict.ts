@@ -15,3 +15,15 @@ export function syncChip(state: SyncState, message?: string | null): HTMLElement
   const label = state === 'rejected' && message ? `rejected: ${message}` : state === 'conflict' && message ? `conflict: ${message}` : SYNC_STATE_LABEL[state];
   return h('span', { class: `chip sync sync-${state}`, dataset: { sync: state }, title: label }, label);
 }
+
+/** Short labels of the server's reading flags (the full message is the chip's title). */
+const FLAG_LABEL: Record<string, string> = { 'spot-retired': '⚑ spot retired' };
+
+/**
+ * One chip per flag the server put on a reading (e.g. taken offline at a spot
+ * that was retired meanwhile): the reading is kept, and the screen says so.
+ */
+export function flagChips(flags: readonly { code: string; message: string }[], opts: { long?: boolean } = {}): HTMLElement[] {
+  return flags.map((f) => h('span', { class: 'chip chip-flag', title: f.message, dataset: { flag: f.code, testid: 'reading-flag' } },
+    opts.long ? f.message || f.code : FLAG_LABEL[f.code] ?? f.code));
+}

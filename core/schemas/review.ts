@@ -32,6 +32,8 @@ export const TrendPointSchema = z.object({
   rhPercent: z.number().nullable(),
   /** Estimated charge with the spot's model, C (signed); null without a model or when none could be made. */
   chargeC: z.number().nullable(),
+  /** Estimated surface charge density with the spot's model, C/m^2 (signed); null where the model defines none (the sheet and layer models give only this). */
+  surfaceChargeDensityCPerM2: z.number().nullable(),
 }).meta({ id: 'TrendPoint' });
 
 export const NotEnoughDataSchema = z.object({

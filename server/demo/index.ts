@@ -6,12 +6,14 @@
  *
  * The story in the numbers:
  * - humidity: usual 45-55 % RH; a dry spell in weeks 4-7 (25-35 % RH) raises fields;
- * - C-04 (web at dryer exit) trends up week by week;
+ * - C-04 (web at dryer exit) trends up week by week, and dry air does not explain it
+ *   (the web leaves a hot dryer: no humidity dependence, little scatter);
  * - C-05 (rewind roll) alarms until an ionising bar is fitted in week 9, then drops;
  * - the spare meter's calibration ran out three weeks ago (its readings are flagged);
  * - a few readings were corrected (a missed digit) and one deleted (wrong spot);
  * - follow-ups: one on C-05 opened from an alarm before the fix and closed by the
- *   first verifying reading within limits after it; one open on C-04 (trending up).
+ *   first verifying reading within limits after it; one open on C-04 (trending up);
+ * - an invented SVG floor plan per area (server/demo/plans.ts) with every spot placed.
  */
 import { v7 } from 'uuid';
 import {
@@ -23,6 +25,9 @@ import { VOLTS_PER_METRE_PER_FIELD_UNIT } from '../../core/units/field';
 import type { Store } from '../store/store';
 import { AREAS, LIMIT_SETS, SITE, SKIP_REASONS, SPOTS, SURVEYORS, type AreaKey, type DemoSpot, type MeterKey } from './plant';
 import { mulberry32, type Prng } from './prng';
+import { demoPlanSvg, demoSpotPositions } from './plans';
+import { sanitizeSvg } from '../../core/plan';
+import { sha256Hex, svgSize } from '../plans/image';
 
 export const DEMO_WEEKS = 14;
 const DRY_WEEKS = new Set([3, 4, 5, 6]);
@@ -65,11 +70,11 @@ function displayValue(e: number, unit: DemoSpot['unit']): number {
 }
 
 function fieldFor(s: DemoSpot, week: number, rh: number, rng: Prng, distanceScale: number): number {
-  const humidity = Math.exp(0.045 * (48 - rh));
+  const humidity = Math.exp(0.045 * (s.rhSensitivity ?? 1) * (48 - rh));
   const trend = 1 + (s.trendPerWeek ?? 0) * week;
   const fix = s.fixedFromWeek !== undefined && week >= s.fixedFromWeek ? s.fixFactor ?? 1 : 1;
   const spike = rng.chance(0.02) ? 2.5 : 1;
-  const noise = Math.exp(0.22 * rng.normal());
+  const noise = Math.exp((s.noiseSd ?? 0.22) * rng.normal());
   return s.baseVPerM * humidity * trend * fix * spike * noise * distanceScale;
 }
 
@@ -106,6 +111,18 @@ export async function loadDemo(store: Store, opts: { now?: Date; seed?: number }
     positions.set(s.area, pos + 1);
     const spot = await store.createSpot(SpotInputSchema.parse({ ...s.spot, areaId: areaIds[s.area], routePosition: pos }));
     spotIds.push(spot.id);
+  }
+  // An invented floor plan per area with every spot placed, so the plan screen shows pins at once.
+  for (const key of Object.keys(AREAS) as AreaKey[]) {
+    const svg = sanitizeSvg(demoPlanSvg(key)).svg;
+    const size = svgSize(svg);
+    await store.putAreaPlan(areaIds[key], { contentType: 'image/svg+xml', bytes: Buffer.from(svg, 'utf8'), width: size?.width ?? null, height: size?.height ?? null, sha256: sha256Hex(Buffer.from(svg, 'utf8')) });
+    const where = demoSpotPositions(key);
+    for (let i = 0; i < SPOTS.length; i++) {
+      const s = SPOTS[i]!;
+      const at = s.area === key ? where[s.spot.code] : undefined;
+      if (at) await store.setSpotPosition(spotIds[i]!, at);
+    }
   }
 
   // ---------- rounds ----------

@@ -101,6 +101,10 @@ export interface DemoSpot {
   process?: { material: string; lineSpeedMPerS: number | null };
   /** Growth per week (0.1 = +10 % a week, linear): the spot that trends up. */
   trendPerWeek?: number;
+  /** How strongly the hall's humidity drives this spot (1 = like the others; 0: a web leaving a hot dryer is dry whatever the hall's air). */
+  rhSensitivity?: number;
+  /** Reading-to-reading scatter, standard deviation of ln|E| (default 0.22). */
+  noiseSd?: number;
   /** Week index (0 = oldest) from which a fix cuts the field to `fixFactor`. */
   fixedFromWeek?: number;
   fixFactor?: number;
@@ -118,20 +122,20 @@ export const SPOTS: DemoSpot[] = [
   { area: 'hall', meter: 'hall', baseVPerM: 200, polarity: '-', unit: 'V/m', process: { material: 'BOPP 30 µm', lineSpeedMPerS: 4.5 },
     spot: { name: 'Web on impression roller, unit 3', code: 'C-03', objectKind: 'web', materialClass: 'insulator', model: 'layer-on-ground', geometry: { thicknessM: 30e-6, relativePermittivity: 2.2 }, defaultDistance: cm(5),
       notes: 'Film on a grounded roller reads low although the charge is there.' } },
-  { area: 'hall', meter: 'hall', baseVPerM: 50e3, polarity: '-', unit: 'kV/m', process: { material: 'BOPP 30 µm', lineSpeedMPerS: 4.5 }, trendPerWeek: 0.11,
+  { area: 'hall', meter: 'hall', baseVPerM: 50e3, polarity: '-', unit: 'kV/m', process: { material: 'BOPP 30 µm', lineSpeedMPerS: 4.5 }, trendPerWeek: 0.2, rhSensitivity: 0, noiseSd: 0.1,
     spot: { name: 'Web at dryer exit', code: 'C-04', objectKind: 'web', materialClass: 'insulator', model: 'sheet', geometry: { widthM: 1.5, groundBehindM: 0.5 }, defaultDistance: cm(5),
       notes: 'Static bar after the dryer: check its cleaning schedule.' } },
   { area: 'hall', meter: 'hall', baseVPerM: 150e3, polarity: '-', unit: 'kV/m', process: { material: 'BOPP 30 µm', lineSpeedMPerS: 4.5 }, fixedFromWeek: 8, fixFactor: 0.18,
     spot: { name: 'Rewind roll, printer 2', code: 'C-05', objectKind: 'roll', materialClass: 'insulator', model: 'line', geometry: { radiusM: 0.4, lengthM: 1.6 }, defaultDistance: cm(10),
       notes: 'Ionising bar fitted before the rewind in week 9 (follow-up).' } },
-  { area: 'hall', meter: 'hall', baseVPerM: 4e3, polarity: '+', unit: 'kV/m',
+  { area: 'hall', meter: 'hall', baseVPerM: 4e3, polarity: '+', unit: 'V',
     spot: { name: 'Ink drum, toluene / ethyl acetate blend', code: 'C-06', objectKind: 'drum', materialClass: 'conductor', model: 'conductor', geometry: { capacitanceF: 100e-12, radiusM: 0.29 }, defaultDistance: cm(5),
       notes: 'Earthing clamp on the drum before decanting.' } },
   { area: 'hall', meter: 'hall', baseVPerM: 20e3, polarity: '+', unit: 'kV/m',
     spot: { name: 'Ink tote (plastic IBC)', code: 'C-07', objectKind: 'tote', materialClass: 'insulator', model: 'rectangle', geometry: { widthM: 1.0, heightM: 1.0 }, defaultDistance: cm(10) } },
-  { area: 'hall', meter: 'hall', baseVPerM: 8e3, polarity: '+', unit: 'kV/m',
+  { area: 'hall', meter: 'hall', baseVPerM: 8e3, polarity: '+', unit: 'V',
     spot: { name: 'Core cart at slitter', code: 'C-08', objectKind: 'cart', materialClass: 'conductor', model: 'conductor', geometry: { capacitanceF: 150e-12 }, defaultDistance: cm(10) } },
-  { area: 'hall', meter: 'hall', baseVPerM: 12e3, polarity: '+', unit: 'kV/m',
+  { area: 'hall', meter: 'hall', baseVPerM: 12e3, polarity: '+', unit: 'V',
     spot: { name: 'Operator at rewind', code: 'C-09', objectKind: 'person', materialClass: 'person', model: 'conductor', geometry: { capacitanceF: 200e-12 }, defaultDistance: cm(10) } },
   { area: 'hall', meter: 'hall', baseVPerM: 35e3, polarity: '-', unit: 'kV/m',
     spot: { name: 'Edge-trim waste bin liner', code: 'C-10', objectKind: 'liner', materialClass: 'insulator', model: 'sheet', geometry: {}, defaultDistance: cm(10) } },
@@ -141,13 +145,13 @@ export const SPOTS: DemoSpot[] = [
     spot: { name: 'Big-bag discharge spout', code: 'P-01', objectKind: 'bag', materialClass: 'insulator', model: 'line', geometry: { radiusM: 0.15, lengthM: 0.5 }, defaultDistance: cm(10) } },
   { area: 'powder', meter: 'hall', baseVPerM: 70e3, polarity: '-', unit: 'kV/m', process: { material: 'starch blend', lineSpeedMPerS: null },
     spot: { name: 'Hopper liner', code: 'P-02', objectKind: 'liner', materialClass: 'insulator', model: 'sheet', geometry: { groundBehindM: 0.02 }, defaultDistance: cm(10) } },
-  { area: 'powder', meter: 'hall', baseVPerM: 6e3, polarity: '-', unit: 'kV/m',
+  { area: 'powder', meter: 'hall', baseVPerM: 6e3, polarity: '-', unit: 'V',
     spot: { name: 'Steel drum at filling head', code: 'P-03', objectKind: 'drum', materialClass: 'conductor', model: 'conductor', geometry: { capacitanceF: 100e-12, radiusM: 0.29 }, defaultDistance: cm(5) } },
   { area: 'powder', meter: 'hall', baseVPerM: 45e3, polarity: '-', unit: 'kV/m', process: { material: 'starch blend', lineSpeedMPerS: null },
     spot: { name: 'Filling hose', code: 'P-04', objectKind: 'hose', materialClass: 'insulator', model: 'line', geometry: { radiusM: 0.05, lengthM: 3 }, defaultDistance: cm(5) } },
   { area: 'powder', meter: 'spare', baseVPerM: 30e3, polarity: '-', unit: 'kV/m',
     spot: { name: 'Filled sacks on pallet', code: 'P-05', objectKind: 'bag', materialClass: 'insulator', model: 'rectangle', geometry: { widthM: 0.5, heightM: 0.8 }, defaultDistance: cm(10) } },
-  { area: 'powder', meter: 'hall', baseVPerM: 18e3, polarity: '+', unit: 'kV/m',
+  { area: 'powder', meter: 'hall', baseVPerM: 18e3, polarity: '+', unit: 'V',
     spot: { name: 'Operator at filling head', code: 'P-06', objectKind: 'person', materialClass: 'person', model: 'conductor', geometry: { capacitanceF: 200e-12 }, defaultDistance: cm(10) } },
   { area: 'powder', meter: 'spare', baseVPerM: 40e3, polarity: '-', unit: 'kV/m',
     spot: { name: 'Plastic sampling scoop', code: 'P-07', objectKind: 'tool', materialClass: 'insulator', model: 'point', geometry: {}, defaultDistance: cm(5) } },
@@ -172,7 +176,7 @@ export const SPOTS: DemoSpot[] = [
   // Dispatch and goods-in
   { area: 'general', meter: 'hall', baseVPerM: 60e3, polarity: '-', unit: 'kV/m',
     spot: { name: 'Stretch wrapper film roll', code: 'G-01', objectKind: 'roll', materialClass: 'insulator', model: 'line', geometry: { radiusM: 0.1, lengthM: 0.5 }, defaultDistance: cm(10) } },
-  { area: 'general', meter: 'hall', baseVPerM: 25e3, polarity: '+', unit: 'kV/m',
+  { area: 'general', meter: 'hall', baseVPerM: 25e3, polarity: '+', unit: 'V',
     spot: { name: 'Forklift driver at dock door', code: 'G-02', objectKind: 'person', materialClass: 'person', model: 'conductor', geometry: { capacitanceF: 200e-12 }, defaultDistance: cm(10) } },
 ];
 

@@ -18,7 +18,7 @@ import type { ExportedReading } from '../store/store';
 export const READINGS_CSV_HEADER = [
   'reading id', 'revision', 'supersedes id', 'superseded by id', 'correction reason', 'deleted reason',
   'taken at (UTC)', 'taken at (site time)', 'spot code', 'spot', 'area', 'value', 'unit', 'polarity', 'field (V/m)',
-  'distance', 'distance unit', 'distance (m)', 'model', 'charge estimate (C)', 'verdict', 'verdict reason',
+  'distance', 'distance unit', 'distance (m)', 'model', 'charge estimate (C)', 'surface charge density estimate (C/m²)', 'verdict', 'verdict reason',
   'RH (%)', 'RH of the round (%)', 'temperature (°C)', 'meter serial', 'surveyor', 'round id', 'zeroed', 'note',
 ] as const;
 
@@ -48,7 +48,7 @@ export function readingsCsv(setup: SetupBundle, readings: ExportedReading[]): st
       r.id, revisionState(r), r.supersedesId, r.supersededById, r.correctionReason, r.deleted?.reason ?? null,
       r.takenAt, localText(Date.parse(r.takenAt), tz), spot?.code ?? '', spot?.name ?? '', spot ? areas.get(spot.areaId) ?? '' : '',
       r.value, r.unit, r.polarity === '-' ? 'negative' : 'positive', j.fieldVPerM, r.distanceValue, r.distanceUnit, distanceToMetres(r.distanceValue, r.distanceUnit),
-      spot?.model ?? null, j.chargeC, j.verdict.level, j.verdict.reason, r.readingRhPercent, r.roundRhPercent, r.temperatureC,
+      spot?.model ?? null, j.chargeC, j.surfaceChargeDensityCPerM2, j.verdict.level, j.verdict.reason, r.readingRhPercent, r.roundRhPercent, r.temperatureC,
       r.meterSerial, r.surveyor, r.roundId, r.zeroed, r.note,
     ];
   });

@@ -31,6 +31,8 @@ export interface Judged {
   fieldVPerM: number;
   /** Estimated charge with the spot's model, C (signed); null without a model or estimate. */
   chargeC: number | null;
+  /** Estimated surface charge density, C/m^2 (signed); null where the model does not define one. */
+  surfaceChargeDensityCPerM2: number | null;
   verdict: LimitVerdict;
 }
 
@@ -38,6 +40,7 @@ export interface Judged {
 export interface LeanJudged {
   fieldVPerM: number;
   chargeC: number | null;
+  surfaceChargeDensityCPerM2: number | null;
   level: VerdictLevel;
   /** The highest ratio of any checked metric to its alarm level; null when no applicable rule has one. */
   ratioToAlarm: number | null;
@@ -49,6 +52,9 @@ interface EstimateMetrics {
   energyJ: number | null;
 }
 
+/** Metrics for one reading; scaled: taken from another reading's estimate by linearity (not computed for this one). */
+type ReadingMetrics = EstimateMetrics & { scaled?: boolean };
+
 type Scaling =
   | { kind: 'none' }
   | { kind: 'full' }
@@ -56,6 +62,11 @@ type Scaling =
 
 const POWERS: Record<keyof EstimateMetrics, number> = { chargeC: 1, surfaceChargeDensityCPerM2: 1, energyJ: 2 };
 const RANK: Record<VerdictLevel, number> = { ok: 0, warn: 1, alarm: 2 };
+
+/** x rounded to 13 significant digits (far below any reported precision, far above floating-point noise). */
+function snap(x: number | null): number | null {
+  return x !== null && Number.isFinite(x) && x !== 0 ? Number(x.toPrecision(13)) : x;
+}
 
 function metricsOf(e: EstimateResponse): EstimateMetrics {
   const f = (v: number | null | undefined) => (typeof v === 'number' && Number.isFinite(v) ? v : null);
@@ -95,7 +106,7 @@ interface Prepared {
   fieldVPerM: number;
   meter: { calibratedDistanceM: number | null; calibrationDue: string; accuracyRel: number | null; geometryFactor: number | null };
   materialClass: string;
-  est: EstimateMetrics | null;
+  est: ReadingMetrics | null;
 }
 
 export class ReadingJudge {
@@ -126,11 +137,14 @@ export class ReadingJudge {
       groundBehind: r.groundBehindValue === null || r.groundBehindUnit === null ? null : { value: r.groundBehindValue, unit: r.groundBehindUnit },
     };
     const est = p.est;
+    const fix = est?.scaled ? snap : (x: number | null) => x;
     const d = deriveReading(core, p.meter, p.ctx?.rules ?? [], {
       materialClass: p.materialClass,
-      extraMetrics: est ? { chargeC: est.chargeC, surfaceChargeDensityCPerM2: est.surfaceChargeDensityCPerM2, energyJ: est.energyJ } : {},
+      // Scaled values are snapped for the sentences: scaling leaves last-bit noise (8.404999999999998e-6 for C V^2/2 = 8.405e-6 J)
+      // that would flip a reason's rounding at a decimal boundary ("8.40 µJ" against the entity's "8.41 µJ").
+      extraMetrics: est ? { chargeC: fix(est.chargeC), surfaceChargeDensityCPerM2: fix(est.surfaceChargeDensityCPerM2), energyJ: fix(est.energyJ) } : {},
     });
-    return { fieldVPerM: d.fieldVPerM, chargeC: est?.chargeC ?? null, verdict: d.verdict };
+    return { fieldVPerM: d.fieldVPerM, chargeC: est?.chargeC ?? null, surfaceChargeDensityCPerM2: est?.surfaceChargeDensityCPerM2 ?? null, verdict: d.verdict };
   }
 
   /**
@@ -161,7 +175,7 @@ export class ReadingJudge {
       if (RANK[here] > RANK[level]) level = here;
       if (rule.alarm !== null && rule.alarm > 0 && (ratio === null || v / rule.alarm > ratio)) ratio = v / rule.alarm;
     }
-    return { fieldVPerM: p.fieldVPerM, chargeC: p.est?.chargeC ?? null, level, ratioToAlarm: ratio };
+    return { fieldVPerM: p.fieldVPerM, chargeC: p.est?.chargeC ?? null, surfaceChargeDensityCPerM2: p.est?.surfaceChargeDensityCPerM2 ?? null, level, ratioToAlarm: ratio };
   }
 
   private prepare(r: LeanReading): Prepared {
@@ -177,7 +191,7 @@ export class ReadingJudge {
     return { ctx, fieldVPerM, meter, materialClass, est };
   }
 
-  private estimateMetrics(r: LeanReading, spot: Spot, fieldVPerM: number, meter: { accuracyRel: number | null; geometryFactor: number | null }): EstimateMetrics | null {
+  private estimateMetrics(r: LeanReading, spot: Spot, fieldVPerM: number, meter: { accuracyRel: number | null; geometryFactor: number | null }): ReadingMetrics | null {
     const surfaceVoltage = isSurfaceVoltageUnit(r.unit);
     const potentialV = surfaceVoltage ? (r.polarity === '-' ? -1 : 1) * r.value * VOLTS_PER_SURFACE_VOLTAGE_UNIT[r.unit as 'V' | 'kV'] : null;
     // Everything the request is made of, except the driving field or potential (the spot and meter are fixed for this judge).
@@ -192,6 +206,7 @@ export class ReadingJudge {
         chargeC: m.chargeC === null ? null : m.chargeC * k,
         surfaceChargeDensityCPerM2: m.surfaceChargeDensityCPerM2 === null ? null : m.surfaceChargeDensityCPerM2 * k,
         energyJ: m.energyJ === null ? null : m.energyJ * k * k,
+        scaled: true,
       };
     }
     // The same input deriveReading gives core/readings/estimate.ts.

@@ -67,7 +67,7 @@ export async function spotTrend(store: Store, spotId: string, range: TrendRange,
   const humid: { rh: number; fieldVPerM: number }[] = [];
   for (const r of data.readings) {
     const j = judge.judgeLean(r);
-    points.push({ readingId: r.id, takenAt: r.takenAt, fieldVPerM: j.fieldVPerM, level: j.level, rhPercent: r.rhPercent, chargeC: j.chargeC });
+    points.push({ readingId: r.id, takenAt: r.takenAt, fieldVPerM: j.fieldVPerM, level: j.level, rhPercent: r.rhPercent, chargeC: j.chargeC, surfaceChargeDensityCPerM2: j.surfaceChargeDensityCPerM2 });
     counts.readings++;
     counts[j.level]++;
     if (j.chargeC !== null) counts.withCharge++;

@@ -169,6 +169,11 @@ describe('charge estimates and sweeps on the tablet (issue 3)', () => {
     await expect.poll(text(page.locator('[data-testid=models-title]')), T).toBe('How estimates are made');
     await expect.poll(count(page.locator('.model-card')), T).toBe(12);
     await expect.poll(text(page.locator('.models-page')), T).toContain('web over a roller reads low');
+    // PHYSICS.md: the moving-web current with its worked example, the double layer, the bulk sphere, the plausibility limits
+    await expect.poll(text(page.locator('[data-testid=models-web-current]')), T).toContain('5 µC/m² × 1.5 m × 4 m/s = 30 µA');
+    await expect.poll(text(page.locator('[data-testid=models-web-current]')), T).toMatch(/double layer/);
+    await expect.poll(text(page.locator('[data-model=bulk-cylinder]')), T).toContain('ρ·R/(3ε0)');
+    await expect.poll(text(page.locator('[data-testid=models-plausibility]')), T).toMatch(/26\.6 µC\/m²[\s\S]*3 MV\/m/);
     await shots('models');
 
     // The area form's substance picker: the substance table with MIE and source.

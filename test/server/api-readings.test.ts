@@ -3,15 +3,17 @@
 // surface-voltage without calibrated distance, round summary and skips.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { newId } from '../../core/ids/uuidv7';
-import { call, createRound, createSetup, dbFingerprint, readingInput, type SetupIds } from '../helpers/api';
-import { startTestServer, type TestServer } from '../helpers/server';
+import { call, createRound, createSetup, readingInput, type SetupIds } from '../helpers/api';
+import { startTestServer, testBackends, type TestServer } from '../helpers/server';
 
+// Runs on SQLite, and on PostgreSQL too when CHARGEWALK_TEST_PG_URL is set.
+describe.each(testBackends())('on %s', (backend) => {
 let srv: TestServer;
 let ids: SetupIds;
 let roundId: string;
 
 beforeAll(async () => {
-  srv = await startTestServer();
+  srv = await startTestServer({ store: backend });
   ids = await createSetup(srv.baseUrl);
   roundId = await createRound(srv.baseUrl, ids.siteId);
 });
@@ -66,14 +68,14 @@ describe('POST /api/readings', () => {
   it('acknowledges an identical resend as duplicate and stores nothing new', async () => {
     const input = readingInput(roundId, ids.spotIds[0]!, ids.meterId, { value: 42 });
     expect((await post({ readings: [input] })).body.acks[0].status).toBe('stored');
-    const before = dbFingerprint(srv.dbPath);
+    const before = await srv.fingerprint();
     // the same content, keys in another order and time written with an offset: still the same reading
     const resent = { ...input, takenAt: '2026-03-02T09:05:00+01:00' };
     const r = await post({ readings: [resent, { ...resent }] });
     expect(r.status).toBe(200);
     expect(r.body.acks.map((a: { status: string }) => a.status)).toEqual(['duplicate', 'duplicate']);
     expect(r.body.acks[0].reading.value).toBe(42);
-    expect(dbFingerprint(srv.dbPath)).toEqual(before);
+    expect(await srv.fingerprint()).toEqual(before);
   });
 
   it('keeps a resend with other content as a conflict, never overwriting the original', async () => {
@@ -102,7 +104,7 @@ describe('POST /api/readings', () => {
   });
 
   it('refuses a surface-voltage reading from a meter without a calibrated distance (400 naming readings.N.unit), storing none of the batch', async () => {
-    const before = dbFingerprint(srv.dbPath);
+    const before = await srv.fingerprint();
     const r = await post({ readings: [
       readingInput(roundId, ids.spotIds[0]!, ids.fieldOnlyMeterId, { unit: 'kV/m', value: 1 }),
       readingInput(roundId, ids.spotIds[0]!, ids.fieldOnlyMeterId, { unit: 'V', value: 100 }),
@@ -110,11 +112,11 @@ describe('POST /api/readings', () => {
     expect(r.status).toBe(400);
     expect(r.body.error.code).toBe('invalid');
     expect(r.body.error.fields).toEqual([{ path: 'readings.1.unit', message: expect.stringContaining('no calibrated distance') }]);
-    expect(dbFingerprint(srv.dbPath)).toEqual(before);
+    expect(await srv.fingerprint()).toEqual(before);
   });
 
   it('answers 404 naming readings.N.spotId for an unknown spot and stores none of the batch', async () => {
-    const before = dbFingerprint(srv.dbPath);
+    const before = await srv.fingerprint();
     const unknown = newId();
     const r = await post({ readings: [readingInput(roundId, ids.spotIds[0]!, ids.meterId), readingInput(roundId, unknown, ids.meterId)] });
     expect(r.status).toBe(404);
@@ -122,7 +124,7 @@ describe('POST /api/readings', () => {
     const single = await post(readingInput(newId(), ids.spotIds[0]!, ids.meterId));
     expect(single.status).toBe(404);
     expect(single.body.error.fields[0].path).toBe('roundId');
-    expect(dbFingerprint(srv.dbPath)).toEqual(before);
+    expect(await srv.fingerprint()).toEqual(before);
   });
 
   it('flags readings of a meter past its calibration due date', async () => {
@@ -247,4 +249,5 @@ describe('rounds', () => {
     expect(p.status).toBe(404);
     expect(p.body.error.fields).toEqual([{ path: 'plannedSpotIds.1', message: `no spot with id ${unknown}` }]);
   });
+});
 });

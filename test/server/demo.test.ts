@@ -87,4 +87,39 @@ describe('demo site', () => {
     const e02 = (await call(srv.baseUrl, 'GET', `/api/spots/${setup.spots.find((s) => s.code === 'E-02')!.id}/readings?history=1&limit=1000`)).body.readings;
     expect(e02.filter((r: { deleted: unknown }) => r.deleted !== null)).toHaveLength(1);
   });
+  it('has an invented floor plan per area with every spot placed and labelled in words, so the plan screen shows pins at once', async () => {
+    for (const area of setup.areas) {
+      const pins = (await call(srv.baseUrl, 'GET', `/api/areas/${area.id}/pins`)).body;
+      expect(pins.plan, area.id).not.toBeNull();
+      expect(pins.plan.contentType).toBe('image/svg+xml');
+      expect(pins.pins.length).toBeGreaterThanOrEqual(2);
+      for (const p of pins.pins) {
+        expect(p.position, p.code).not.toBeNull();
+        expect(p.position.x).toBeGreaterThan(0);
+        expect(p.position.x).toBeLessThan(1);
+        expect(p.position.y).toBeGreaterThan(0);
+        expect(p.position.y).toBeLessThan(1);
+        expect(p.text).toMatch(new RegExp(`^${p.code} · (OK|Warn|Alarm|No reading)`));
+      }
+      const img = await fetch(`${srv.baseUrl}/api/areas/${area.id}/plan`);
+      expect(img.status).toBe(200);
+      const svg = await img.text();
+      expect(svg).toMatch(/^<svg /);
+      expect(svg).toContain('invented demo plan');
+      expect(svg).not.toMatch(/<script|href=|on\w+=/i);
+    }
+  });
+  it('reads its isolated conductors (drum, operator) in surface-voltage mode, so the spark-energy check against the MIE is made (PHYSICS.md: W = C V^2 / 2)', async () => {
+    for (const code of ['C-06', 'C-09', 'P-03']) {
+      const id = setup.spots.find((s) => s.code === code)!.id;
+      const r = (await call(srv.baseUrl, 'GET', `/api/spots/${id}/readings?limit=1`)).body.readings[0];
+      expect(r.unit, code).toBe('V');
+      const spark = r.hazards.find((v: { check: string }) => v.check === 'spark-energy');
+      expect(spark.level, code).not.toBe('not-applicable');
+      expect(spark.compared.unit).toBe('J');
+      // the energy compared is C V^2 / 2 of the estimate
+      expect(spark.compared.value / r.estimate.energyJ).toBeCloseTo(1, 9);
+      expect(r.estimate.energyJ / (0.5 * r.estimate.capacitanceF * r.estimate.potentialV ** 2)).toBeCloseTo(1, 9);
+    }
+  });
 });

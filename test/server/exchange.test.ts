@@ -175,7 +175,7 @@ describe('whole-site JSON export and import', () => {
         'follow_ups', 'follow_up_events', 'area_plans', 'spot_positions']) {
         expect(freshDb[t], t).toBe(demoDb[t]);
       }
-      expect(imported.body).toEqual({ siteId, counts: expect.objectContaining({ readings: demoDb.readings, rounds: demoDb.rounds, followUps: demoDb.follow_ups, plans: 1, positions: 1 }) });
+      expect(imported.body).toEqual({ siteId, counts: expect.objectContaining({ readings: demoDb.readings, rounds: demoDb.rounds, followUps: demoDb.follow_ups, plans: demoDb.area_plans, positions: demoDb.spot_positions }) });
 
       const again = await (await fetch(`${fresh.baseUrl}/api/sites/${siteId}/export.json`)).json();
       expect({ ...again, exportedAt: '' }).toEqual({ ...data, exportedAt: '' });
@@ -195,6 +195,25 @@ describe('whole-site JSON export and import', () => {
       expect(bad.body.error.fields).toEqual(expect.arrayContaining([{ path: 'readings.0.roundId', message: 'no round with this id in the export' }]));
       expect((await call(fresh.baseUrl, 'POST', '/api/import/site.json', { format: 'something else' })).status).toBe(400);
       expect(dbFingerprint(fresh.dbPath)).toEqual(before);
+
+      // The readings CSV carries the estimate the spot's model defines: charge for a roll (line), surface charge
+      // density for a web (sheet), each equal to the stored reading's own estimate (issue 4: "estimate").
+      const csv = parseCsv(await (await fetch(`${demo.baseUrl}/api/sites/${siteId}/readings.csv`)).text()).rows;
+      const head = csv[0]!;
+      const at = (row: string[], name: string) => row[head.indexOf(name)]!;
+      for (const code of ['C-01', 'C-02']) {
+        const s = setup.spots.find((x: { code: string }) => x.code === code);
+        const latest = (await call(demo.baseUrl, 'GET', `/api/spots/${s.id}/readings?limit=1`)).body.readings[0];
+        const row = csv.find((r) => r[0] === latest.id)!;
+        expect(at(row, 'model'), code).toBe(s.model);
+        if (code === 'C-01') {
+          expect(Number(at(row, 'charge estimate (C)')) / latest.estimate.chargeC).toBeCloseTo(1, 9);
+          expect(Number(at(row, 'surface charge density estimate (C/m²)')) / latest.estimate.surfaceChargeDensityCPerM2).toBeCloseTo(1, 9);
+        } else {
+          expect(at(row, 'charge estimate (C)')).toBe('');
+          expect(Number(at(row, 'surface charge density estimate (C/m²)')) / latest.estimate.surfaceChargeDensityCPerM2).toBeCloseTo(1, 9);
+        }
+      }
     } finally {
       await demo.close();
       await fresh.close();

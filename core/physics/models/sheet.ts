@@ -64,3 +64,26 @@ export function sheetFromField(args: { fieldVPerM: number; gapM: number; groundB
   res.warnings.push(...fieldWarnings(fieldVPerM), ...densityWarnings(sigma));
   return res;
 }
+
+/**
+ * Charge current carried off a process by a moving charged web: I = sigma w v
+ * (PHYSICS.md "Moving web"). It sizes a neutraliser (which must deliver the same
+ * current of the opposite sign) and makes lines at different speeds comparable.
+ * A web charged + on one face and - on the other (a double layer) reads near zero
+ * on a field meter yet can discharge: its sigma, and so this current, is then not
+ * what the meter sees.
+ * Reference: conservation of charge (charge per unit area times area swept per
+ * second); PHYSICS.md worked example 5 uC/m^2 on a 1.5 m web at 4 m/s = 30 uA.
+ * @param sigmaCPerM2 surface charge density, C/m^2 (signed)
+ * @param widthM web width, m
+ * @param speedMPerS line speed, m/s (0 gives 0: a stopped web carries no current)
+ * @returns current, A (signed as sigma)
+ * @example webChargeCurrentA(5e-6, 1.5, 4) // 3e-5 A (30 uA)
+ */
+export function webChargeCurrentA(sigmaCPerM2: number, widthM: number, speedMPerS: number): number {
+  requireFinite('sigmaCPerM2', sigmaCPerM2);
+  requirePositive('widthM', widthM);
+  requireFinite('speedMPerS', speedMPerS);
+  if (speedMPerS < 0) throw new RangeError('speedMPerS must be zero or positive');
+  return sigmaCPerM2 * widthM * speedMPerS;
+}

@@ -1,0 +1,367 @@
+/**
+ * readings, reading_tombstones, reading_conflicts: the append-only log of field
+ * readings. A correction is a new row whose supersedes_id names the revision it
+ * replaces; the current revision is the one no other row supersedes; a delete is
+ * a tombstone row. Nothing here ever UPDATEs or DELETEs a reading (triggers refuse).
+ *
+ * Rows map to the Reading entity in one place (rowToStored + toReadingEntity), with
+ * derived values recomputed by core/ from the stored inputs.
+ */
+import { newId } from '../../../../core/ids/uuidv7';
+import type { LimitRule } from '../../../../core/limits/evaluate';
+import { deriveReading, type AreaHazardContext, type SpotEstimateContext } from '../../../../core/readings/derive';
+import type { CorrectionInput, Reading, ReadingAck, ReadingConflict, ReadingInput } from '../../../../core/schemas';
+import { isSurfaceVoltageUnit } from '../../../../core/units/field';
+import { contentHash, toUtcIso } from '../../canonical';
+import { conflict, invalid, notFound } from '../../errors';
+import { DERIVE_VERSION, toReadingEntity, type ReadingContext, type ReadingFlag, type StoredReading } from '../../reading-entity';
+import type { Db } from '../db';
+import { parseRules } from './limit-sets';
+
+interface ReadingRow {
+  id: string;
+  round_id: string;
+  spot_id: string;
+  meter_id: string;
+  taken_at: string;
+  received_at: string;
+  value: number;
+  unit: string;
+  polarity: string;
+  meter_range: string;
+  distance_value: number;
+  distance_unit: string;
+  distance_uncertainty_m: number | null;
+  side: string | null;
+  ground_behind_value: number | null;
+  ground_behind_unit: string | null;
+  zeroed: number;
+  rh_percent: number | null;
+  temperature_c: number | null;
+  process: string | null;
+  note: string;
+  meter_calibrated_distance_m: number | null;
+  meter_calibration_due: string;
+  supersedes_id: string | null;
+  correction_reason: string | null;
+  content_hash: string;
+  field_v_per_m: number;
+  derive_version: number;
+  flags: string;
+  // joined
+  superseded_by_id: string | null;
+  tombstone_reason: string | null;
+  tombstone_at: string | null;
+  spot_material_class: string;
+  limit_rules: string | null;
+  // joined for the charge estimate and hazard verdicts (core/readings/estimate.ts)
+  spot_model: string | null;
+  spot_geometry: string;
+  spot_distance_uncertainty_m: number | null;
+  area_kind: string;
+  area_zone: number | null;
+  area_gas_group: string | null;
+  area_substance_id: string | null;
+  area_dust_mie_j: number | null;
+  meter_accuracy_rel: number | null;
+  meter_geometry_factor: number | null;
+}
+
+/** A reading with what its derived values need: the spot (material, model, geometry), its area (kind, limit rules) and the meter. */
+const READING_COLUMNS = `
+  SELECT r.*,
+    (SELECT c.id FROM readings c WHERE c.supersedes_id = r.id) AS superseded_by_id,
+    t.reason AS tombstone_reason, t.at AS tombstone_at,
+    s.material_class AS spot_material_class, ls.rules AS limit_rules,
+    s.model AS spot_model, s.geometry AS spot_geometry, s.distance_uncertainty_m AS spot_distance_uncertainty_m,
+    a.kind AS area_kind, a.zone AS area_zone, a.gas_group AS area_gas_group, a.substance_id AS area_substance_id,
+    a.dust_mie_j AS area_dust_mie_j, m.accuracy_rel AS meter_accuracy_rel, m.geometry_factor AS meter_geometry_factor`;
+const READING_JOINS = `
+  JOIN spots s ON s.id = r.spot_id
+  JOIN areas a ON a.id = s.area_id
+  LEFT JOIN limit_sets ls ON ls.id = a.limit_set_id
+  LEFT JOIN meters m ON m.id = r.meter_id
+  LEFT JOIN reading_tombstones t ON t.reading_id = r.id`;
+const SELECT_READING = `${READING_COLUMNS} FROM readings r ${READING_JOINS}`;
+
+const CURRENT = 'NOT EXISTS (SELECT 1 FROM readings c WHERE c.supersedes_id = r.id)';
+const NOT_DELETED = 't.reading_id IS NULL';
+
+function inputFromRow(r: ReadingRow): ReadingInput {
+  return {
+    id: r.id, roundId: r.round_id, spotId: r.spot_id, meterId: r.meter_id, takenAt: r.taken_at,
+    value: r.value, unit: r.unit as ReadingInput['unit'], polarity: r.polarity as ReadingInput['polarity'],
+    meterRange: r.meter_range,
+    distance: { value: r.distance_value, unit: r.distance_unit as ReadingInput['distance']['unit'] },
+    distanceUncertaintyM: r.distance_uncertainty_m, side: r.side as ReadingInput['side'],
+    groundBehind: r.ground_behind_value === null || r.ground_behind_unit === null
+      ? null : { value: r.ground_behind_value, unit: r.ground_behind_unit as ReadingInput['distance']['unit'] },
+    zeroed: r.zeroed === 1, rhPercent: r.rh_percent, temperatureC: r.temperature_c,
+    process: r.process === null ? null : JSON.parse(r.process) as ReadingInput['process'],
+    note: r.note,
+  };
+}
+
+function rowToStored(r: ReadingRow): StoredReading {
+  return {
+    input: inputFromRow(r),
+    receivedAt: r.received_at,
+    supersedesId: r.supersedes_id,
+    supersededById: r.superseded_by_id,
+    correctionReason: r.correction_reason,
+    deleted: r.tombstone_reason === null || r.tombstone_at === null ? null : { reason: r.tombstone_reason, at: r.tombstone_at },
+    flags: JSON.parse(r.flags) as ReadingFlag[],
+    meterCalibratedDistanceM: r.meter_calibrated_distance_m,
+    meterCalibrationDue: r.meter_calibration_due,
+  };
+}
+
+/** Maps rows to entities, parsing each distinct limit set's rules once. */
+function toEntities(rows: ReadingRow[]): Reading[] {
+  const rulesCache = new Map<string | null, LimitRule[]>();
+  const geometryCache = new Map<string, SpotEstimateContext['geometry']>();
+  return rows.map((r) => {
+    let rules = rulesCache.get(r.limit_rules);
+    if (!rules) {
+      rules = parseRules(r.limit_rules);
+      rulesCache.set(r.limit_rules, rules);
+    }
+    return toReadingEntity(rowToStored(r), { rules, materialClass: r.spot_material_class, ...estimateContext(r, geometryCache) });
+  });
+}
+
+/** The spot, area and meter parts of a row that the estimate and hazard verdicts need. */
+function estimateContext(r: ReadingRow, geometryCache: Map<string, SpotEstimateContext['geometry']>): Pick<ReadingContext, 'spot' | 'area' | 'meter'> {
+  let geometry = geometryCache.get(r.spot_geometry);
+  if (geometry === undefined) {
+    geometry = JSON.parse(r.spot_geometry) as SpotEstimateContext['geometry'];
+    geometryCache.set(r.spot_geometry, geometry);
+  }
+  return {
+    spot: { model: r.spot_model as SpotEstimateContext['model'], geometry, materialClass: r.spot_material_class, distanceUncertaintyM: r.spot_distance_uncertainty_m },
+    area: {
+      kind: r.area_kind as AreaHazardContext['kind'], zone: r.area_zone as AreaHazardContext['zone'],
+      gasGroup: r.area_gas_group as AreaHazardContext['gasGroup'], substanceId: r.area_substance_id, dustMieJ: r.area_dust_mie_j,
+    },
+    meter: { accuracyRel: r.meter_accuracy_rel, geometryFactor: r.meter_geometry_factor },
+  };
+}
+
+export async function getReadingEntity(db: Db, id: string): Promise<Reading | null> {
+  const r = (await db.get(`${SELECT_READING} WHERE r.id = ?`, id)) as ReadingRow | undefined;
+  return r ? toEntities([r])[0]! : null;
+}
+
+export async function getReadingsByIds(db: Db, ids: string[]): Promise<Map<string, Reading>> {
+  if (ids.length === 0) return new Map();
+  const rows = (await db.all(`${SELECT_READING} WHERE r.id IN (SELECT json_array_elements_text(?::json))`, JSON.stringify(ids))) as ReadingRow[];
+  const entities = toEntities(rows);
+  return new Map(entities.map((e) => [e.id, e]));
+}
+
+/** Every revision of the reading `id` belongs to, oldest first. */
+export async function readingHistory(db: Db, id: string): Promise<Reading[]> {
+  const rows = (await db.all(`
+    WITH RECURSIVE
+      back(id, sup) AS (
+        SELECT id, supersedes_id FROM readings WHERE id = ?
+        UNION ALL SELECT r.id, r.supersedes_id FROM readings r JOIN back ON r.id = back.sup),
+      origin(id) AS (SELECT id FROM back WHERE sup IS NULL),
+      fwd(id, depth) AS (
+        SELECT id, 0 FROM origin
+        UNION ALL SELECT r.id, fwd.depth + 1 FROM readings r JOIN fwd ON r.supersedes_id = fwd.id)
+    ${READING_COLUMNS} FROM fwd JOIN readings r ON r.id = fwd.id ${READING_JOINS}
+    ORDER BY fwd.depth`, id)) as ReadingRow[];
+  return toEntities(rows);
+}
+
+export async function listSpotReadings(db: Db, spotId: string, opts: { history: boolean; limit: number }): Promise<Reading[]> {
+  const where = opts.history ? 'r.spot_id = ?' : `r.spot_id = ? AND ${CURRENT} AND ${NOT_DELETED}`;
+  const rows = (await db.all(`${SELECT_READING} WHERE ${where} ORDER BY r.taken_at DESC, r.id DESC LIMIT ?`, spotId, opts.limit)) as ReadingRow[];
+  return toEntities(rows);
+}
+
+export async function listRoundReadings(db: Db, roundId: string): Promise<Reading[]> {
+  const rows = (await db.all(`${SELECT_READING} WHERE r.round_id = ? AND ${CURRENT} AND ${NOT_DELETED} ORDER BY r.taken_at, r.id`, roundId)) as ReadingRow[];
+  return toEntities(rows);
+}
+
+// ---------- writing ----------
+
+interface RoundRef { site_id: string }
+interface SpotRef { site_id: string; code: string; name: string; retired_at: string | null; retired_reason: string | null; material_class: string; rules: string | null }
+interface MeterRef { site_id: string; serial: string; calibrated_distance_m: number | null; calibration_due: string }
+
+/** Look-ups of the set-up a batch refers to, cached for the length of one transaction. */
+class RefCache {
+  private rounds = new Map<string, RoundRef | undefined>();
+  private spots = new Map<string, SpotRef | undefined>();
+  private meters = new Map<string, MeterRef | undefined>();
+  private rules = new Map<string | null, LimitRule[]>();
+
+  constructor(private readonly db: Db) {}
+
+  async round(id: string): Promise<RoundRef | undefined> {
+    if (!this.rounds.has(id)) this.rounds.set(id, await this.db.get('SELECT site_id FROM rounds WHERE id = ?', id) as RoundRef | undefined);
+    return this.rounds.get(id);
+  }
+
+  async spot(id: string): Promise<SpotRef | undefined> {
+    if (!this.spots.has(id)) {
+      this.spots.set(id, await this.db.get(`
+        SELECT s.site_id, s.code, s.name, s.retired_at, s.retired_reason, s.material_class, ls.rules
+        FROM spots s JOIN areas a ON a.id = s.area_id LEFT JOIN limit_sets ls ON ls.id = a.limit_set_id
+        WHERE s.id = ?`, id) as SpotRef | undefined);
+    }
+    return this.spots.get(id);
+  }
+
+  async meter(id: string): Promise<MeterRef | undefined> {
+    if (!this.meters.has(id)) {
+      this.meters.set(id, await this.db.get('SELECT site_id, serial, calibrated_distance_m, calibration_due FROM meters WHERE id = ?', id) as MeterRef | undefined);
+    }
+    return this.meters.get(id);
+  }
+
+  rulesOf(json: string | null): LimitRule[] {
+    let r = this.rules.get(json);
+    if (!r) {
+      r = parseRules(json);
+      this.rules.set(json, r);
+    }
+    return r;
+  }
+}
+
+/** The input as stored: times in UTC, so text order is time order and a retry hashes the same. */
+function normalizeInput(input: ReadingInput): ReadingInput {
+  return { ...input, takenAt: toUtcIso(input.takenAt) };
+}
+
+/** The reading-input part of a correction (its reason is kept beside it, not hashed). */
+function readingPart(input: CorrectionInput): ReadingInput {
+  const { reason: _reason, ...rest } = input;
+  return rest;
+}
+
+async function existingHash(db: Db, id: string): Promise<{ content_hash: string; supersedes_id: string | null; correction_reason: string | null } | undefined> {
+  return (await db.get('SELECT content_hash, supersedes_id, correction_reason FROM readings WHERE id = ?', id)) as
+    { content_hash: string; supersedes_id: string | null; correction_reason: string | null } | undefined;
+}
+
+/**
+ * Checks the set-up a reading refers to and inserts it. Field paths start with `at`
+ * (e.g. [3] for the fourth reading of a batch, [] for a single one).
+ */
+async function insertChecked(
+  db: Db, refs: RefCache, input: ReadingInput, hash: string, at: (string | number)[],
+  opts: { receivedAt: string; supersedesId?: string; correctionReason?: string },
+): Promise<void> {
+  const round = await refs.round(input.roundId);
+  if (!round) throw notFound(`no round with id ${input.roundId}: send the round before its readings`, [...at, 'roundId']);
+  const spot = await refs.spot(input.spotId);
+  if (!spot) throw notFound(`no spot with id ${input.spotId}`, [...at, 'spotId']);
+  const meter = await refs.meter(input.meterId);
+  if (!meter) throw notFound(`no meter with id ${input.meterId}`, [...at, 'meterId']);
+  if (spot.site_id !== round.site_id) throw invalid('the spot belongs to another site than the round', [...at, 'spotId']);
+  if (meter.site_id !== round.site_id) throw invalid('the meter belongs to another site than the round', [...at, 'meterId']);
+  if (isSurfaceVoltageUnit(input.unit) && !(meter.calibrated_distance_m !== null && meter.calibrated_distance_m > 0)) {
+    throw invalid(`meter ${meter.serial} has no calibrated distance, so a surface-voltage reading (${input.unit}) cannot be converted to a field: enter the field unit the meter shows, or set the meter's calibrated distance`, [...at, 'unit']);
+  }
+  const flags: ReadingFlag[] = [];
+  if (spot.retired_at !== null) {
+    flags.push({
+      code: 'spot-retired',
+      message: `spot ${spot.code} (${spot.name}) was retired at ${spot.retired_at}${spot.retired_reason ? ` (${spot.retired_reason})` : ''}; the reading is kept`,
+    });
+  }
+  const derived = deriveReading(input, { calibratedDistanceM: meter.calibrated_distance_m, calibrationDue: meter.calibration_due },
+    refs.rulesOf(spot.rules), { materialClass: spot.material_class });
+  (await db.run(`INSERT INTO readings (id, round_id, spot_id, meter_id, taken_at, received_at, value, unit, polarity, meter_range,
+      distance_value, distance_unit, distance_uncertainty_m, side, ground_behind_value, ground_behind_unit, zeroed, rh_percent,
+      temperature_c, process, note, meter_calibrated_distance_m, meter_calibration_due, supersedes_id, correction_reason,
+      content_hash, field_v_per_m, derive_version, flags)
+    VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`, 
+    input.id, input.roundId, input.spotId, input.meterId, input.takenAt, opts.receivedAt, input.value, input.unit, input.polarity,
+    input.meterRange, input.distance.value, input.distance.unit, input.distanceUncertaintyM, input.side,
+    input.groundBehind?.value ?? null, input.groundBehind?.unit ?? null, input.zeroed ? 1 : 0, input.rhPercent, input.temperatureC,
+    input.process === null ? null : JSON.stringify(input.process), input.note, meter.calibrated_distance_m, meter.calibration_due,
+    opts.supersedesId ?? null, opts.correctionReason ?? null, hash, derived.fieldVPerM, DERIVE_VERSION, JSON.stringify(flags),
+  ));
+}
+
+/**
+ * Stores a batch in the caller's transaction. Throws (and so rolls the whole batch
+ * back) on an unknown round, spot or meter; answers one ack per reading.
+ */
+export async function ingestReadings(db: Db, inputs: ReadingInput[], receivedAt: string): Promise<{ id: string; status: ReadingAck['status']; message?: string }[]> {
+  const refs = new RefCache(db);
+  const acks: { id: string; status: ReadingAck['status']; message?: string }[] = [];
+  for (const [i, raw] of inputs.entries()) {
+    const input = normalizeInput(raw);
+    const hash = contentHash(input);
+    const existing = (await existingHash(db, input.id));
+    if (existing) {
+      if (existing.content_hash === hash) {
+        acks.push({ id: input.id, status: 'duplicate' as const, message: 'already stored (a resent copy); not stored again' });
+        continue;
+      }
+      (await db.run(`INSERT INTO reading_conflicts (id, reading_id, payload, content_hash, received_at) VALUES (?, ?, ?, ?, ?)
+                ON CONFLICT (reading_id, content_hash) DO NOTHING`, newId(), input.id, JSON.stringify(input), hash, receivedAt));
+      acks.push({
+        id: input.id, status: 'conflict' as const,
+        message: 'a different reading with this id is already stored; this one is kept for review (GET /api/conflicts) and was not applied',
+      });
+      continue;
+    }
+    await insertChecked(db, refs, input, hash, [i], { receivedAt });
+    acks.push({ id: input.id, status: 'stored' as const });
+  }
+  return acks;
+}
+
+/** Whether a revision may still be corrected or deleted: it must be current and not deleted. */
+async function revisionState(db: Db, id: string): Promise<{ exists: boolean; supersededBy: string | null; deleted: boolean }> {
+  const r = (await db.get(`SELECT (SELECT c.id FROM readings c WHERE c.supersedes_id = r.id) AS superseded_by,
+      EXISTS (SELECT 1 FROM reading_tombstones t WHERE t.reading_id = r.id)::int AS deleted
+    FROM readings r WHERE r.id = ?`, id)) as { superseded_by: string | null; deleted: number } | undefined;
+  return r ? { exists: true, supersededBy: r.superseded_by, deleted: r.deleted === 1 } : { exists: false, supersededBy: null, deleted: false };
+}
+
+/** Inserts a correction of revision `id` in the caller's transaction; created false for an identical retry. */
+export async function correctReading(db: Db, id: string, correction: CorrectionInput, receivedAt: string): Promise<{ created: boolean }> {
+  const input = normalizeInput(readingPart(correction));
+  const hash = contentHash(input);
+  const state = (await revisionState(db, id));
+  if (!state.exists) throw notFound(`no reading with id ${id}`, ['id']);
+  const existing = (await existingHash(db, input.id));
+  if (existing) {
+    if (existing.supersedes_id === id && existing.content_hash === hash && existing.correction_reason === correction.reason) {
+      return { created: false };
+    }
+    throw conflict(`a reading with id ${input.id} already exists: a correction needs a new id`, ['id']);
+  }
+  if (state.supersededBy !== null) {
+    throw conflict(`this revision is already corrected by ${state.supersededBy}: correct the current revision`);
+  }
+  if (state.deleted) throw conflict('this reading is deleted: a deleted reading cannot be corrected');
+  await insertChecked(db, new RefCache(db), input, hash, [], { receivedAt, supersedesId: id, correctionReason: correction.reason });
+  return { created: true };
+}
+
+export async function tombstoneReading(db: Db, id: string, reason: string, at: string): Promise<void> {
+  const state = (await revisionState(db, id));
+  if (!state.exists) throw notFound(`no reading with id ${id}`, ['id']);
+  if (state.deleted) throw conflict('this reading is already deleted');
+  if (state.supersededBy !== null) {
+    throw conflict(`this revision is superseded by ${state.supersededBy}: delete the current revision`);
+  }
+  (await db.run('INSERT INTO reading_tombstones (reading_id, reason, at) VALUES (?, ?, ?)', id, reason, at));
+}
+
+interface ConflictRow { id: string; reading_id: string; payload: string; received_at: string }
+
+export async function listConflicts(db: Db): Promise<ReadingConflict[]> {
+  return ((await db.all('SELECT id, reading_id, payload, received_at FROM reading_conflicts ORDER BY received_at DESC, id DESC')) as ConflictRow[])
+    .map((r) => ({ id: r.id, readingId: r.reading_id, payload: JSON.parse(r.payload) as ReadingInput, receivedAt: r.received_at }));
+}

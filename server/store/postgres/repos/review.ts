@@ -1,0 +1,199 @@
+/**
+ * The reads of the weekly review and the spot trend, and the kept weekly
+ * aggregates (review_week_cache, migration 0004).
+ *
+ * Speed (ARCHITECTURE.md, bench/run.ts): a week of 500 spots is ~19k readings;
+ * they come through readings_spot_time (spot_id, taken_at, ...) one spot at a
+ * time. The weeks before (previous week, 8-week trend, 13-week humidity) are read
+ * from the cache, filled once per complete week and dropped whenever a reading
+ * taken in that week is stored, corrected or deleted (invalidateWeeks).
+ */
+import { median } from '../../../../core/stats';
+import { normalizeReading, type ReadingUnit } from '../../../../core/units/field';
+import type { Round, Skip } from '../../../../core/schemas';
+import type { LeanReading, TimeWindow, WeekAggregate } from '../../store';
+import { DERIVE_VERSION } from '../../reading-entity';
+import type { Db } from '../db';
+
+const DAY_MS = 86_400_000;
+/** Stamps the cached aggregates: bump when their computation (or the normalization, DERIVE_VERSION) changes. */
+export const WEEK_CACHE_VERSION = DERIVE_VERSION * 1000 + 1;
+
+interface LeanRow {
+  id: string;
+  spot_id: string;
+  round_id: string;
+  meter_id: string;
+  taken_at: string;
+  value: number;
+  unit: string;
+  polarity: string;
+  distance_value: number;
+  distance_unit: string;
+  distance_uncertainty_m: number | null;
+  ground_behind_value: number | null;
+  ground_behind_unit: string | null;
+  meter_calibrated_distance_m: number | null;
+  meter_calibration_due: string;
+  rh_percent: number | null;
+}
+
+const LEAN_COLUMNS = `r.id, r.spot_id, r.round_id, r.meter_id, r.taken_at, r.value, r.unit, r.polarity, r.distance_value, r.distance_unit,
+  r.distance_uncertainty_m, r.ground_behind_value, r.ground_behind_unit, r.meter_calibrated_distance_m, r.meter_calibration_due, r.rh_percent`;
+const CURRENT = `NOT EXISTS (SELECT 1 FROM readings c WHERE c.supersedes_id = r.id)
+  AND NOT EXISTS (SELECT 1 FROM reading_tombstones t WHERE t.reading_id = r.id)`;
+
+/** The week's current readings of every spot of a site (the review's main read; the benchmark's baseline runs it bare). */
+export const SITE_WEEK_SQL = `SELECT ${LEAN_COLUMNS}
+  FROM spots s JOIN readings r ON r.spot_id = s.id AND r.taken_at >= ? AND r.taken_at < ?
+  WHERE s.site_id = ? AND ${CURRENT}`;
+
+/** One spot's current readings in a range, oldest first (the trend's read; the benchmark's baseline runs it bare). */
+export const SPOT_RANGE_SQL = `SELECT ${LEAN_COLUMNS}
+  FROM readings r WHERE r.spot_id = ? AND r.taken_at >= ? AND r.taken_at < ? AND ${CURRENT}
+  ORDER BY r.taken_at, r.id`;
+
+const iso = (ms: number) => new Date(ms).toISOString();
+
+function rowToLean(r: LeanRow, roundRh: Map<string, number | null>): LeanReading {
+  return {
+    id: r.id, spotId: r.spot_id, roundId: r.round_id, meterId: r.meter_id, takenAt: r.taken_at, value: r.value,
+    unit: r.unit as LeanReading['unit'], polarity: r.polarity as LeanReading['polarity'],
+    distanceValue: r.distance_value, distanceUnit: r.distance_unit as LeanReading['distanceUnit'], distanceUncertaintyM: r.distance_uncertainty_m,
+    groundBehindValue: r.ground_behind_value, groundBehindUnit: r.ground_behind_unit as LeanReading['groundBehindUnit'],
+    meterCalibratedDistanceM: r.meter_calibrated_distance_m, meterCalibrationDue: r.meter_calibration_due,
+    rhPercent: r.rh_percent ?? roundRh.get(r.round_id) ?? null,
+  };
+}
+
+/** RH of the rounds of readings that have none of their own (one small query). */
+async function roundRhFor(db: Db, rows: LeanRow[]): Promise<Map<string, number | null>> {
+  const ids = new Set<string>();
+  for (const r of rows) if (r.rh_percent === null) ids.add(r.round_id);
+  if (ids.size === 0) return new Map();
+  const found = (await db.all('SELECT id, rh_percent FROM rounds WHERE id IN (SELECT json_array_elements_text(?::json))', JSON.stringify([...ids]))) as
+    { id: string; rh_percent: number | null }[];
+  return new Map(found.map((r) => [r.id, r.rh_percent]));
+}
+
+export async function siteWeekReadings(db: Db, siteId: string, w: TimeWindow): Promise<LeanReading[]> {
+  const rows = (await db.all(SITE_WEEK_SQL, iso(w.startMs), iso(w.endMs), siteId)) as LeanRow[];
+  const rh = (await roundRhFor(db, rows));
+  return rows.map((r) => rowToLean(r, rh));
+}
+
+export async function spotRangeReadings(db: Db, spotId: string, fromMs: number | null, toMs: number): Promise<LeanReading[]> {
+  const rows = (await db.all(SPOT_RANGE_SQL, spotId, fromMs === null ? '' : iso(fromMs), iso(toMs))) as LeanRow[];
+  const rh = (await roundRhFor(db, rows));
+  return rows.map((r) => rowToLean(r, rh));
+}
+
+/** |E| of a lean reading, V/m, from its stored inputs. */
+export function absField(r: { value: number; unit: ReadingUnit; polarity: '+' | '-'; meterCalibratedDistanceM: number | null }): number {
+  return Math.abs(normalizeReading({ value: r.value, unit: r.unit, polarity: r.polarity, calibratedDistanceM: r.meterCalibratedDistanceM }));
+}
+
+/** Summarises a week from its readings (per spot and whole site). */
+export function aggregateWeek(w: TimeWindow, readings: LeanReading[]): WeekAggregate {
+  const bySpot = new Map<string, { fields: number[]; rh: number[] }>();
+  const siteRh: number[] = [];
+  for (const r of readings) {
+    let g = bySpot.get(r.spotId);
+    if (!g) {
+      g = { fields: [], rh: [] };
+      bySpot.set(r.spotId, g);
+    }
+    g.fields.push(absField(r));
+    if (r.rhPercent !== null) {
+      g.rh.push(r.rhPercent);
+      siteRh.push(r.rhPercent);
+    }
+  }
+  const spots: WeekAggregate['spots'] = new Map();
+  for (const [spotId, g] of bySpot) {
+    let max = 0;
+    for (const f of g.fields) if (f > max) max = f;
+    spots.set(spotId, { readings: g.fields.length, medianAbsFieldVPerM: median(g.fields), maxAbsFieldVPerM: max, medianRhPercent: g.rh.length ? median(g.rh) : null });
+  }
+  return { startMs: w.startMs, endMs: w.endMs, readings: readings.length, medianRhPercent: siteRh.length ? median(siteRh) : null, spots };
+}
+
+interface CacheRow {
+  start_ms: number;
+  end_ms: number;
+  readings: number;
+  median_rh_percent: number | null;
+  spots: string;
+}
+
+type SpotTuple = [number, number, number, number | null];
+
+/** The cached aggregates of these weeks (those present, of this version, with the same end). */
+export async function cachedWeeks(db: Db, siteId: string, timeZone: string, weeks: TimeWindow[], withSpots = true): Promise<Map<number, WeekAggregate>> {
+  const out = new Map<number, WeekAggregate>();
+  if (weeks.length === 0) return out;
+  const starts = weeks.map((w) => w.startMs);
+  const rows = (await db.all(`SELECT start_ms, end_ms, readings, median_rh_percent, ${withSpots ? 'spots' : "'{}' AS spots"}
+    FROM review_week_cache WHERE site_id = ? AND start_ms >= ? AND start_ms <= ? AND time_zone = ? AND version = ?`, siteId, Math.min(...starts), Math.max(...starts), timeZone, WEEK_CACHE_VERSION)) as CacheRow[];
+  const ends = new Map(weeks.map((w) => [w.startMs, w.endMs]));
+  for (const r of rows) {
+    if (ends.get(r.start_ms) !== r.end_ms) continue;
+    const spots: WeekAggregate['spots'] = new Map();
+    for (const [spotId, t] of Object.entries(JSON.parse(r.spots) as Record<string, SpotTuple>)) {
+      spots.set(spotId, { readings: t[0], medianAbsFieldVPerM: t[1], maxAbsFieldVPerM: t[2], medianRhPercent: t[3] });
+    }
+    out.set(r.start_ms, { startMs: r.start_ms, endMs: r.end_ms, readings: r.readings, medianRhPercent: r.median_rh_percent, spots });
+  }
+  return out;
+}
+
+/** Computes and keeps the aggregates of complete weeks (call in a write transaction). */
+export async function fillWeekCache(db: Db, siteId: string, timeZone: string, weeks: TimeWindow[], now: string): Promise<Map<number, WeekAggregate>> {
+  const out = new Map<number, WeekAggregate>();
+  const ins = { run: (...a: unknown[]) => db.run(`INSERT INTO review_week_cache (site_id, start_ms, time_zone, end_ms, readings, median_rh_percent, spots, version, computed_at)
+    VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)
+    ON CONFLICT (site_id, start_ms, time_zone) DO UPDATE SET end_ms = excluded.end_ms, readings = excluded.readings,
+      median_rh_percent = excluded.median_rh_percent, spots = excluded.spots, version = excluded.version, computed_at = excluded.computed_at`, ...a) };
+  for (const w of weeks) {
+    const agg = aggregateWeek(w, (await siteWeekReadings(db, siteId, w)));
+    const spots: Record<string, SpotTuple> = {};
+    for (const [spotId, x] of agg.spots) spots[spotId] = [x.readings, x.medianAbsFieldVPerM, x.maxAbsFieldVPerM, x.medianRhPercent];
+    await ins.run(siteId, w.startMs, timeZone, w.endMs, agg.readings, agg.medianRhPercent, JSON.stringify(spots), WEEK_CACHE_VERSION, now);
+    out.set(w.startMs, agg);
+  }
+  return out;
+}
+
+/**
+ * Drops the kept aggregates of the week holding `takenAt` at the spot's site (any
+ * time zone): called in the transaction that stores, corrects or deletes a reading.
+ */
+export async function invalidateWeeks(db: Db, spotId: string, takenAt: string): Promise<void> {
+  const t = Date.parse(takenAt);
+  if (!Number.isFinite(t)) return;
+  // A site week is at most 169 hours long, so its start lies within 8 days before t.
+  (await db.run(`DELETE FROM review_week_cache WHERE site_id = (SELECT site_id FROM spots WHERE id = ?)
+    AND start_ms > ? AND start_ms <= ? AND end_ms > ?`, spotId, t - 8 * DAY_MS, t, t));
+}
+
+/** Drops every kept aggregate of a site (e.g. its time zone changed). */
+export async function invalidateSite(db: Db, siteId: string): Promise<void> {
+  (await db.run('DELETE FROM review_week_cache WHERE site_id = ?', siteId));
+}
+
+interface RoundRow {
+  id: string; site_id: string; surveyor: string; started_at: string; ended_at: string | null; rh_percent: number | null;
+  temperature_c: number | null; notes: string; planned_spot_ids: string; created_at: string;
+}
+
+/** Rounds started in the window, and their skips. */
+export async function roundsInWindow(db: Db, siteId: string, w: TimeWindow): Promise<{ rounds: Round[]; skips: Skip[] }> {
+  const rows = (await db.all('SELECT * FROM rounds WHERE site_id = ? AND started_at >= ? AND started_at < ? ORDER BY started_at, id', siteId, iso(w.startMs), iso(w.endMs))) as RoundRow[];
+  const rounds: Round[] = rows.map((r) => ({
+    id: r.id, siteId: r.site_id, surveyor: r.surveyor, startedAt: r.started_at, endedAt: r.ended_at, rhPercent: r.rh_percent,
+    temperatureC: r.temperature_c, notes: r.notes, plannedSpotIds: JSON.parse(r.planned_spot_ids) as string[], createdAt: r.created_at,
+  }));
+  const skips = rounds.length === 0 ? [] : ((await db.all(`SELECT * FROM round_skips WHERE round_id IN (SELECT json_array_elements_text(?::json)) ORDER BY at, id`, JSON.stringify(rounds.map((r) => r.id)))) as { id: string; round_id: string; spot_id: string; reason: string; at: string; created_at: string }[])
+    .map((s) => ({ id: s.id, roundId: s.round_id, spotId: s.spot_id, reason: s.reason, at: s.at, createdAt: s.created_at }));
+  return { rounds, skips };
+}
