@@ -11,7 +11,7 @@ import { readingEstimateBlock } from '../ui/reading-estimate';
 import { openSheet, toast } from '../ui/sheet';
 import { flagChips, syncChip, verdictChip } from '../ui/verdict';
 import { fmtAsEntered, fmtDateTime, fmtDistance, fmtField } from '../ui/format';
-import { currentSetup } from '../app';
+import { openSpotPage } from './spot-page-base';
 import { correctReading, deleteReading, getRound, loadSpotHistory, readingsOfSpot } from '../data';
 import { onOutboxChange, readingSyncState } from '../offline/outbox';
 import { areaOf, revisionChains } from '../round/logic';
@@ -24,15 +24,9 @@ const CORRECTION_REASONS = ['Wrong value typed', 'Wrong polarity', 'Wrong unit',
 
 export async function spotPage(root: HTMLElement, params: Record<string, string>): Promise<() => void> {
   const spotId = params.id!;
-  const body = h('div', { class: 'page spot-page' }, h('p', { class: 'muted' }, 'Loading…'));
-  root.append(body);
-  const setup = await currentSetup({ preferCache: true });
-  const bundle = setup?.data;
-  const spot = bundle?.spots.find((s) => s.id === spotId);
-  if (!bundle || !spot) {
-    replace(body, h('p', { class: 'error-box' }, 'This spot is not in the set-up on this tablet.'), h('a', { class: 'btn', href: '#/' }, 'Home'));
-    return () => undefined;
-  }
+  const opened = await openSpotPage(root, spotId, 'spot-page');
+  if (!opened.spot) return () => undefined;
+  const { body, bundle, spot } = opened;
   const area = areaOf(bundle, spot);
   const listEl = h('div', { class: 'revisions', dataset: { testid: 'spot-readings' } });
   const sourceEl = h('p', { class: 'muted' });

@@ -11,7 +11,7 @@ import { h, replace } from '../ui/h';
 import { toast } from '../ui/sheet';
 import { fmtWithInterval } from '../ui/estimate-view';
 import '../ui/estimate.css';
-import { currentSetup } from '../app';
+import { openSpotPage } from './spot-page-base';
 import { roundsOfSite, saveReading, getRound } from '../data';
 import { prefs } from '../state';
 import { fittedCurve, sweep } from '../../core/physics/sweep';
@@ -61,15 +61,9 @@ function logGrid(a: number, b: number, n: number): number[] {
 
 export async function sweepPage(root: HTMLElement, params: Record<string, string>): Promise<() => void> {
   const spotId = params.spotId!;
-  const body = h('div', { class: 'page sweep-page' }, h('p', { class: 'muted' }, 'Loading…'));
-  root.append(body);
-  const setup = await currentSetup({ preferCache: true });
-  const bundle = setup?.data;
-  const spot = bundle?.spots.find((s) => s.id === spotId);
-  if (!bundle || !spot) {
-    replace(body, h('p', { class: 'error-box' }, 'This spot is not in the set-up on this tablet.'), h('a', { class: 'btn', href: '#/' }, 'Home'));
-    return () => undefined;
-  }
+  const opened = await openSpotPage(root, spotId, 'sweep-page');
+  if (!opened.spot) return () => undefined;
+  const { body, bundle, spot } = opened;
 
   // The round the readings can be saved to: ?round=<id>, else the newest open round of the site on this tablet.
   const q = new URLSearchParams(location.hash.split('?')[1] ?? '');
