@@ -3,36 +3,13 @@
  * sanitized by the route) and where its spots sit on it, as fractions 0..1.
  * A position counts only while the spot is still in the area it was placed in.
  */
-import type { PlanInfo, Reading, SpotPosition } from '../../../../core/schemas';
+import type { PlanInfo, SpotPosition } from '../../../../core/schemas';
 import { notFound } from '../../errors';
 import type { Db } from '../db';
+import { infoFromRow, type PinData, type PlanRow, type PlanToStore } from '../../shared/plans';
+export type { PinData, PlanToStore };
 import { areaSite } from './areas';
 import { listSpotReadings } from './readings';
-
-interface PlanRow {
-  area_id: string;
-  content_type: string;
-  size: number;
-  width: number | null;
-  height: number | null;
-  sha256: string;
-  uploaded_at: string;
-}
-
-export interface PlanToStore {
-  contentType: PlanInfo['contentType'];
-  bytes: Buffer;
-  width: number | null;
-  height: number | null;
-  sha256: string;
-}
-
-function infoFromRow(r: PlanRow): PlanInfo {
-  return {
-    areaId: r.area_id, contentType: r.content_type as PlanInfo['contentType'], bytes: r.size, width: r.width, height: r.height,
-    sha256: r.sha256, uploadedAt: r.uploaded_at,
-  };
-}
 
 const INFO = 'SELECT area_id, content_type, octet_length(bytes) AS size, width, height, sha256, uploaded_at FROM area_plans';
 
@@ -80,14 +57,6 @@ export async function setSpotPosition(db: Db, spotId: string, pos: { x: number; 
       ON CONFLICT (spot_id) DO UPDATE SET area_id = excluded.area_id, x = excluded.x, y = excluded.y, updated_at = excluded.updated_at`, spotId, current.areaId, pos.x, pos.y, now));
   }
   return (await getSpotPosition(db, spotId))!;
-}
-
-export interface PinData {
-  spotId: string;
-  code: string;
-  name: string;
-  position: { x: number; y: number } | null;
-  latest: Reading | null;
 }
 
 /** The area's active spots in route order, each with its position and latest current reading (derived by core/). */

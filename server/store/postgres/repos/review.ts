@@ -8,35 +8,11 @@
  * from the cache, filled once per complete week and dropped whenever a reading
  * taken in that week is stored, corrected or deleted (invalidateWeeks).
  */
-import { median } from '../../../../core/stats';
-import { normalizeReading, type ReadingUnit } from '../../../../core/units/field';
 import type { Round, Skip } from '../../../../core/schemas';
 import type { LeanReading, TimeWindow, WeekAggregate } from '../../store';
-import { DERIVE_VERSION } from '../../reading-entity';
 import type { Db } from '../db';
-
-const DAY_MS = 86_400_000;
-/** Stamps the cached aggregates: bump when their computation (or the normalization, DERIVE_VERSION) changes. */
-export const WEEK_CACHE_VERSION = DERIVE_VERSION * 1000 + 1;
-
-interface LeanRow {
-  id: string;
-  spot_id: string;
-  round_id: string;
-  meter_id: string;
-  taken_at: string;
-  value: number;
-  unit: string;
-  polarity: string;
-  distance_value: number;
-  distance_unit: string;
-  distance_uncertainty_m: number | null;
-  ground_behind_value: number | null;
-  ground_behind_unit: string | null;
-  meter_calibrated_distance_m: number | null;
-  meter_calibration_due: string;
-  rh_percent: number | null;
-}
+import { DAY_MS, WEEK_CACHE_VERSION, absField, aggregateWeek, iso, rowToLean, type CacheRow, type LeanRow, type RoundRow, type SpotTuple } from '../../shared/review';
+export { WEEK_CACHE_VERSION, absField, aggregateWeek };
 
 const LEAN_COLUMNS = `r.id, r.spot_id, r.round_id, r.meter_id, r.taken_at, r.value, r.unit, r.polarity, r.distance_value, r.distance_unit,
   r.distance_uncertainty_m, r.ground_behind_value, r.ground_behind_unit, r.meter_calibrated_distance_m, r.meter_calibration_due, r.rh_percent`;
@@ -52,19 +28,6 @@ export const SITE_WEEK_SQL = `SELECT ${LEAN_COLUMNS}
 export const SPOT_RANGE_SQL = `SELECT ${LEAN_COLUMNS}
   FROM readings r WHERE r.spot_id = ? AND r.taken_at >= ? AND r.taken_at < ? AND ${CURRENT}
   ORDER BY r.taken_at, r.id`;
-
-const iso = (ms: number) => new Date(ms).toISOString();
-
-function rowToLean(r: LeanRow, roundRh: Map<string, number | null>): LeanReading {
-  return {
-    id: r.id, spotId: r.spot_id, roundId: r.round_id, meterId: r.meter_id, takenAt: r.taken_at, value: r.value,
-    unit: r.unit as LeanReading['unit'], polarity: r.polarity as LeanReading['polarity'],
-    distanceValue: r.distance_value, distanceUnit: r.distance_unit as LeanReading['distanceUnit'], distanceUncertaintyM: r.distance_uncertainty_m,
-    groundBehindValue: r.ground_behind_value, groundBehindUnit: r.ground_behind_unit as LeanReading['groundBehindUnit'],
-    meterCalibratedDistanceM: r.meter_calibrated_distance_m, meterCalibrationDue: r.meter_calibration_due,
-    rhPercent: r.rh_percent ?? roundRh.get(r.round_id) ?? null,
-  };
-}
 
 /** RH of the rounds of readings that have none of their own (one small query). */
 async function roundRhFor(db: Db, rows: LeanRow[]): Promise<Map<string, number | null>> {
@@ -87,46 +50,6 @@ export async function spotRangeReadings(db: Db, spotId: string, fromMs: number |
   const rh = (await roundRhFor(db, rows));
   return rows.map((r) => rowToLean(r, rh));
 }
-
-/** |E| of a lean reading, V/m, from its stored inputs. */
-export function absField(r: { value: number; unit: ReadingUnit; polarity: '+' | '-'; meterCalibratedDistanceM: number | null }): number {
-  return Math.abs(normalizeReading({ value: r.value, unit: r.unit, polarity: r.polarity, calibratedDistanceM: r.meterCalibratedDistanceM }));
-}
-
-/** Summarises a week from its readings (per spot and whole site). */
-export function aggregateWeek(w: TimeWindow, readings: LeanReading[]): WeekAggregate {
-  const bySpot = new Map<string, { fields: number[]; rh: number[] }>();
-  const siteRh: number[] = [];
-  for (const r of readings) {
-    let g = bySpot.get(r.spotId);
-    if (!g) {
-      g = { fields: [], rh: [] };
-      bySpot.set(r.spotId, g);
-    }
-    g.fields.push(absField(r));
-    if (r.rhPercent !== null) {
-      g.rh.push(r.rhPercent);
-      siteRh.push(r.rhPercent);
-    }
-  }
-  const spots: WeekAggregate['spots'] = new Map();
-  for (const [spotId, g] of bySpot) {
-    let max = 0;
-    for (const f of g.fields) if (f > max) max = f;
-    spots.set(spotId, { readings: g.fields.length, medianAbsFieldVPerM: median(g.fields), maxAbsFieldVPerM: max, medianRhPercent: g.rh.length ? median(g.rh) : null });
-  }
-  return { startMs: w.startMs, endMs: w.endMs, readings: readings.length, medianRhPercent: siteRh.length ? median(siteRh) : null, spots };
-}
-
-interface CacheRow {
-  start_ms: number;
-  end_ms: number;
-  readings: number;
-  median_rh_percent: number | null;
-  spots: string;
-}
-
-type SpotTuple = [number, number, number, number | null];
 
 /** The cached aggregates of these weeks (those present, of this version, with the same end). */
 export async function cachedWeeks(db: Db, siteId: string, timeZone: string, weeks: TimeWindow[], withSpots = true): Promise<Map<number, WeekAggregate>> {
@@ -179,11 +102,6 @@ export async function invalidateWeeks(db: Db, spotId: string, takenAt: string): 
 /** Drops every kept aggregate of a site (e.g. its time zone changed). */
 export async function invalidateSite(db: Db, siteId: string): Promise<void> {
   (await db.run('DELETE FROM review_week_cache WHERE site_id = ?', siteId));
-}
-
-interface RoundRow {
-  id: string; site_id: string; surveyor: string; started_at: string; ended_at: string | null; rh_percent: number | null;
-  temperature_c: number | null; notes: string; planned_spot_ids: string; created_at: string;
 }
 
 /** Rounds started in the window, and their skips. */

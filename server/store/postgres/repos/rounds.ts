@@ -4,37 +4,10 @@ import { contentHash, toUtcIso } from '../../canonical';
 import { conflict, invalid, notFound } from '../../errors';
 import type { RoundFinishInput } from '../../store';
 import type { Db } from '../db';
+import { roundFromRow, skipFromRow, summarizeRound, type RoundRow, type SkipRow } from '../../shared/rounds';
 import { listRoundReadings } from './readings';
 import { requireSite } from './sites';
 import { activeSpotIds } from './spots';
-
-interface RoundRow {
-  id: string;
-  site_id: string;
-  surveyor: string;
-  started_at: string;
-  ended_at: string | null;
-  rh_percent: number | null;
-  temperature_c: number | null;
-  notes: string;
-  planned_spot_ids: string;
-  content_hash: string;
-  created_at: string;
-}
-
-interface SkipRow { id: string; round_id: string; spot_id: string; reason: string; at: string; created_at: string }
-
-function roundFromRow(r: RoundRow): Round {
-  return {
-    id: r.id, siteId: r.site_id, surveyor: r.surveyor, startedAt: r.started_at, endedAt: r.ended_at,
-    rhPercent: r.rh_percent, temperatureC: r.temperature_c, notes: r.notes,
-    plannedSpotIds: JSON.parse(r.planned_spot_ids) as string[], createdAt: r.created_at,
-  };
-}
-
-function skipFromRow(r: SkipRow): Skip {
-  return { id: r.id, roundId: r.round_id, spotId: r.spot_id, reason: r.reason, at: r.at, createdAt: r.created_at };
-}
 
 async function getRoundRow(db: Db, id: string): Promise<RoundRow | undefined> {
   return (await db.get('SELECT * FROM rounds WHERE id = ?', id)) as RoundRow | undefined;
@@ -93,18 +66,7 @@ export async function roundSummary(db: Db, id: string): Promise<RoundSummary | n
   if (!round) return null;
   const readings = (await listRoundReadings(db, id));
   const skips = (await listSkips(db, id));
-  const measured = new Set(readings.map((r) => r.spotId));
-  const skipped = new Set(skips.map((s) => s.spotId));
-  return {
-    round,
-    readings: readings.length,
-    spotsMeasured: measured.size,
-    planned: round.plannedSpotIds.length,
-    warnings: readings.filter((r) => r.verdict.level === 'warn').length,
-    alarms: readings.filter((r) => r.verdict.level === 'alarm').length,
-    skipped: skips.map(({ createdAt: _c, ...s }) => s),
-    notMeasured: round.plannedSpotIds.filter((sid) => !measured.has(sid) && !skipped.has(sid)),
-  };
+  return summarizeRound(round, readings, skips);
 }
 
 /** Sets the end of a round; finishing again with the same end is harmless, with another end a conflict. */

@@ -3,19 +3,7 @@ import { newId } from '../../../../core/ids/uuidv7';
 import type { Site, SiteInput } from '../../../../core/schemas';
 import { conflict, invalid, notFound } from '../../errors';
 import type { Db } from '../db';
-
-interface SiteRow {
-  id: string;
-  name: string;
-  time_zone: string;
-  notes: string;
-  created_at: string;
-  updated_at: string;
-}
-
-function siteFromRow(r: SiteRow): Site {
-  return { id: r.id, name: r.name, timeZone: r.time_zone, notes: r.notes, createdAt: r.created_at, updatedAt: r.updated_at };
-}
+import { siteFromRow, type SiteRow } from '../../shared/sites';
 
 export async function getSite(db: Db, id: string): Promise<Site | null> {
   const r = (await db.get('SELECT * FROM sites WHERE id = ?', id)) as SiteRow | undefined;

@@ -10,6 +10,9 @@ import { conflict } from '../../errors';
 import type { ExportedReading } from '../../store';
 import { DERIVE_VERSION } from '../../reading-entity';
 import { stmt, type Db } from '../db';
+import {
+  collisionChecks, exportedReadingFromRow, historyOrder, iso, storedReadingFromRow, tombstonesOf, type FullRow,
+} from '../../shared/exchange';
 import { listAreas } from './areas';
 import { exportSiteFollowUps } from './follow-ups';
 import { listLimitSets } from './limit-sets';
@@ -17,31 +20,6 @@ import { listMeters } from './meters';
 import { exportPlans } from './plans';
 import { getSite } from './sites';
 import { listSiteSpots } from './spots';
-
-interface FullRow {
-  id: string; round_id: string; spot_id: string; meter_id: string; taken_at: string; received_at: string; value: number; unit: string;
-  polarity: string; meter_range: string; distance_value: number; distance_unit: string; distance_uncertainty_m: number | null;
-  side: string | null; ground_behind_value: number | null; ground_behind_unit: string | null; zeroed: number; rh_percent: number | null;
-  temperature_c: number | null; process: string | null; note: string; meter_calibrated_distance_m: number | null; meter_calibration_due: string;
-  supersedes_id: string | null; correction_reason: string | null; flags: string;
-  superseded_by_id: string | null; tombstone_reason: string | null; tombstone_at: string | null;
-  surveyor: string; round_rh: number | null; meter_serial: string | null;
-}
-
-const iso = (ms: number) => new Date(ms).toISOString();
-
-function inputOf(r: FullRow): ReadingInput {
-  return {
-    id: r.id, roundId: r.round_id, spotId: r.spot_id, meterId: r.meter_id, takenAt: r.taken_at,
-    value: r.value, unit: r.unit as ReadingInput['unit'], polarity: r.polarity as ReadingInput['polarity'], meterRange: r.meter_range,
-    distance: { value: r.distance_value, unit: r.distance_unit as ReadingInput['distance']['unit'] },
-    distanceUncertaintyM: r.distance_uncertainty_m, side: r.side as ReadingInput['side'],
-    groundBehind: r.ground_behind_value === null || r.ground_behind_unit === null
-      ? null : { value: r.ground_behind_value, unit: r.ground_behind_unit as ReadingInput['distance']['unit'] },
-    zeroed: r.zeroed === 1, rhPercent: r.rh_percent, temperatureC: r.temperature_c,
-    process: r.process === null ? null : JSON.parse(r.process) as ReadingInput['process'], note: r.note,
-  };
-}
 
 const FULL_SELECT = `SELECT r.*, (SELECT c.id FROM readings c WHERE c.supersedes_id = r.id) AS superseded_by_id,
     t.reason AS tombstone_reason, t.at AS tombstone_at, rd.surveyor, rd.rh_percent AS round_rh, m.serial AS meter_serial
@@ -54,17 +32,7 @@ const FULL_SELECT = `SELECT r.*, (SELECT c.id FROM readings c WHERE c.supersedes
 export function exportReadingRows(db: Db, siteId: string, fromMs: number | null, toMs: number | null): ExportedReading[] {
   const rows = stmt(db, `${FULL_SELECT} WHERE s.site_id = ? AND r.taken_at >= ? AND r.taken_at < ? ORDER BY r.taken_at, r.id`)
     .all(siteId, fromMs === null ? '' : iso(fromMs), toMs === null ? '9999' : iso(toMs)) as FullRow[];
-  return rows.map((r) => ({
-    id: r.id, spotId: r.spot_id, roundId: r.round_id, meterId: r.meter_id, takenAt: r.taken_at, value: r.value,
-    unit: r.unit as ExportedReading['unit'], polarity: r.polarity as ExportedReading['polarity'],
-    distanceValue: r.distance_value, distanceUnit: r.distance_unit as ExportedReading['distanceUnit'], distanceUncertaintyM: r.distance_uncertainty_m,
-    groundBehindValue: r.ground_behind_value, groundBehindUnit: r.ground_behind_unit as ExportedReading['groundBehindUnit'],
-    meterCalibratedDistanceM: r.meter_calibrated_distance_m, meterCalibrationDue: r.meter_calibration_due,
-    rhPercent: r.rh_percent ?? r.round_rh, readingRhPercent: r.rh_percent, roundRhPercent: r.round_rh, temperatureC: r.temperature_c,
-    zeroed: r.zeroed === 1, note: r.note, surveyor: r.surveyor, meterSerial: r.meter_serial ?? '',
-    supersedesId: r.supersedes_id, supersededById: r.superseded_by_id, correctionReason: r.correction_reason,
-    deleted: r.tombstone_reason === null || r.tombstone_at === null ? null : { reason: r.tombstone_reason, at: r.tombstone_at },
-  }));
+  return rows.map(exportedReadingFromRow);
 }
 
 export function existingReadingIds(db: Db, ids: string[]): Set<string> {
@@ -88,13 +56,8 @@ export function exportSite(db: Db, siteId: string, now: string): SiteExport | nu
     { id: string; round_id: string; spot_id: string; reason: string; at: string; created_at: string }[])
     .map((k) => ({ id: k.id, roundId: k.round_id, spotId: k.spot_id, reason: k.reason, at: k.at, createdAt: k.created_at }));
   const rows = stmt(db, `${FULL_SELECT} WHERE s.site_id = ? ORDER BY r.taken_at, r.id`).all(siteId) as FullRow[];
-  const readings: StoredReadingExport[] = rows.map((r) => ({
-    ...inputOf(r), receivedAt: r.received_at, supersedesId: r.supersedes_id, correctionReason: r.correction_reason,
-    flags: JSON.parse(r.flags) as StoredReadingExport['flags'], meterCalibratedDistanceM: r.meter_calibrated_distance_m,
-    meterCalibrationDue: r.meter_calibration_due,
-  }));
-  const tombstones = rows.filter((r) => r.tombstone_reason !== null && r.tombstone_at !== null)
-    .map((r) => ({ readingId: r.id, reason: r.tombstone_reason!, at: r.tombstone_at! }));
+  const readings: StoredReadingExport[] = rows.map(storedReadingFromRow);
+  const tombstones = tombstonesOf(rows);
   const conflicts = (stmt(db, `SELECT c.* FROM reading_conflicts c JOIN readings r ON r.id = c.reading_id JOIN spots s ON s.id = r.spot_id
     WHERE s.site_id = ? ORDER BY c.received_at, c.id`).all(siteId) as { id: string; reading_id: string; payload: string; received_at: string }[])
     .map((c) => ({ id: c.id, readingId: c.reading_id, payload: JSON.parse(c.payload) as ReadingInput, receivedAt: c.received_at }));
@@ -111,44 +74,13 @@ export function exportSite(db: Db, siteId: string, now: string): SiteExport | nu
 
 /** Ids of the export that are already stored here, by table (the first few). */
 function collisions(db: Db, data: SiteExport): string | null {
-  const checks: [string, string, string[]][] = [
-    ['site', 'sites', [data.site.id]],
-    ['limit set', 'limit_sets', data.limitSets.map((x) => x.id)],
-    ['area', 'areas', data.areas.map((x) => x.id)],
-    ['spot', 'spots', data.spots.map((x) => x.id)],
-    ['meter', 'meters', data.meters.map((x) => x.id)],
-    ['round', 'rounds', data.rounds.map((x) => x.id)],
-    ['skip', 'round_skips', data.skips.map((x) => x.id)],
-    ['reading', 'readings', data.readings.map((x) => x.id)],
-    ['follow-up', 'follow_ups', data.followUps.map((x) => x.id)],
-  ];
+  const checks = collisionChecks(data);
   for (const [what, table, ids] of checks) {
     if (ids.length === 0) continue;
     const hit = db.prepare(`SELECT id FROM ${table} WHERE id IN (SELECT value FROM json_each(?)) LIMIT 1`).get(JSON.stringify(ids)) as { id: string } | undefined;
     if (hit) return `a ${what} with id ${hit.id} is already stored here`;
   }
   return null;
-}
-
-/** Parents before their corrections (a correction references the revision it supersedes). */
-function historyOrder(readings: StoredReadingExport[]): StoredReadingExport[] {
-  const byId = new Map(readings.map((r) => [r.id, r]));
-  const depth = new Map<string, number>();
-  const depthOf = (r: StoredReadingExport): number => {
-    const known = depth.get(r.id);
-    if (known !== undefined) return known;
-    let d = 0;
-    let cur: StoredReadingExport | undefined = r;
-    const seen = new Set<string>();
-    while (cur?.supersedesId && !seen.has(cur.id)) {
-      seen.add(cur.id);
-      cur = byId.get(cur.supersedesId);
-      d++;
-    }
-    depth.set(r.id, d);
-    return d;
-  };
-  return [...readings].sort((a, b) => depthOf(a) - depthOf(b));
 }
 
 /** Inserts a checked export (call in a write transaction). Conflict when an id exists. */

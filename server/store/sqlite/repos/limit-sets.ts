@@ -1,36 +1,11 @@
 /** limit_sets: warn and alarm levels per metric, each with its source; rules kept as JSON checked by zod. */
-import { z } from 'zod';
 import { newId } from '../../../../core/ids/uuidv7';
-import type { LimitRule } from '../../../../core/limits/evaluate';
-import { LimitRuleSchema, type LimitSet, type LimitSetInput } from '../../../../core/schemas';
+import type { LimitSet, LimitSetInput } from '../../../../core/schemas';
 import { conflict, invalid, notFound } from '../../errors';
 import { stmt, type Db } from '../db';
+import { limitSetFromRow, parseRules, type LimitSetRow } from '../../shared/limit-sets';
+export { parseRules };
 import { requireSite } from './sites';
-
-interface LimitSetRow {
-  id: string;
-  site_id: string;
-  name: string;
-  description: string;
-  rules: string;
-  created_at: string;
-  updated_at: string;
-}
-
-const RulesSchema = z.array(LimitRuleSchema);
-
-/** Parses the rules column; a row edited by hand into an invalid shape fails loudly here, not in a verdict. */
-export function parseRules(json: string | null): LimitRule[] {
-  if (json === null) return [];
-  return RulesSchema.parse(JSON.parse(json));
-}
-
-function limitSetFromRow(r: LimitSetRow): LimitSet {
-  return {
-    id: r.id, siteId: r.site_id, name: r.name, description: r.description, rules: parseRules(r.rules),
-    createdAt: r.created_at, updatedAt: r.updated_at,
-  };
-}
 
 export function getLimitSet(db: Db, id: string): LimitSet | null {
   const r = stmt(db, 'SELECT * FROM limit_sets WHERE id = ?').get(id) as LimitSetRow | undefined;

@@ -3,19 +3,7 @@ import { newId } from '../../../../core/ids/uuidv7';
 import type { Site, SiteInput } from '../../../../core/schemas';
 import { conflict, invalid, notFound } from '../../errors';
 import { stmt, type Db } from '../db';
-
-interface SiteRow {
-  id: string;
-  name: string;
-  time_zone: string;
-  notes: string;
-  created_at: string;
-  updated_at: string;
-}
-
-function siteFromRow(r: SiteRow): Site {
-  return { id: r.id, name: r.name, timeZone: r.time_zone, notes: r.notes, createdAt: r.created_at, updatedAt: r.updated_at };
-}
+import { siteFromRow, type SiteRow } from '../../shared/sites';
 
 export function getSite(db: Db, id: string): Site | null {
   const r = stmt(db, 'SELECT * FROM sites WHERE id = ?').get(id) as SiteRow | undefined;
