@@ -1,7 +1,7 @@
 /**
  * "How estimates are made" (#/models): every estimation model in plain words, with
  * its formula, when it holds and what practitioners trip over, then the sweep, the
- * uncertainty and the caution. Static text (PHYSICS.md, FACTS.md); no user text.
+ * uncertainty and the caution. Static text with published sources; no user text.
  */
 import { h } from '../ui/h';
 import '../ui/estimate.css';

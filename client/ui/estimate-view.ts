@@ -99,7 +99,7 @@ export function inputsText(model: EstimateModel, spot: SpotEstimateContext | nul
 const RANK: Record<Verdict['level'], number> = { 'not-applicable': -1, ok: 0, warn: 1, alarm: 2 };
 
 /**
- * The charge current a moving web carries off, I = sigma w v (PHYSICS.md "Moving web"), in words;
+ * The charge current a moving web carries off, I = sigma w v (the charge a moving web carries off, as a current), in words;
  * null unless the estimate has a surface charge density and the width and a running line speed are known.
  * @example webCurrentText(sheetEstimate(5e-6), { widthM: 1.5, speedMPerS: 4 }) // 'Charge carried off by the moving web: I = σ·w·v = 30 µA ...'
  */

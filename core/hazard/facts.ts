@@ -1,8 +1,8 @@
 /**
- * The facts of the trade (FACTS.md) as typed records: every value in SI with its unit
+ * The facts of the trade as typed records: every value in SI with its unit
  * and its source exactly as named there ('common practice' or 'from memory' where no
  * published copy was seen). Limit templates and verdicts take their numbers from here
- * only, so a test can hold each number against FACTS.md.
+ * only, so a test can hold each number against its published source.
  */
 import { EPSILON_0, INCH_M } from '../physics/constants';
 
@@ -59,7 +59,7 @@ export const FACTS = {
   propagatingBrushMaxLayerThickness: { value: 8e-3, unit: 'm', source: 'NFPA 77 (2000) 4.3.7' },
   propagatingBrushMinBreakdownVoltage: { value: 4000, unit: 'V', source: 'from memory (Britton; Glor criterion)', note: 'no propagating brush if the layer breaks down below 4 kV' },
   brushDischargeOnsetSurfaceChargeDensity: {
-    value: 10e-6, unit: 'C/m^2', source: 'from memory (order of magnitude for incendive brush discharges from charged insulators; not in FACTS.md)',
+    value: 10e-6, unit: 'C/m^2', source: 'from memory (order of magnitude for incendive brush discharges from charged insulators; no published value at hand)',
     note: 'brush discharges to a grounded electrode need a surface charge density of the order of 10 uC/m^2 (air holds at most 26.5)',
   },
   earthingCapacitanceThreshold: { value: 10 * pF, unit: 'F', source: 'TRBS 2153 8.3.5 (forerunner of TRGS 727)', note: 'earth conductive parts above 10 pF' },

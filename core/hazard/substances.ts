@@ -1,6 +1,6 @@
 /**
  * The substance picker: minimum ignition energies (MIE) and minimum ignition charges
- * from FACTS.md with their sources. Where two tables disagree the LOWER MIE is used
+ * with their published sources. Where two tables disagree the LOWER MIE is used
  * (the conservative one) and the other is kept in `mieAlternatives`.
  *
  * gasGroup here is the group for static-electricity purposes, from the MIE bands of

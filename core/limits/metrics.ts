@@ -1,6 +1,6 @@
 /**
  * The metrics a limit set can bound. All values are SI magnitudes; polarity is
- * kept on the reading, limits compare |value| (PHYSICS: magnitudes for limits).
+ * kept on the reading, limits compare |value| (limits judge magnitudes; the sign stays on the reading).
  */
 export const LIMIT_METRICS = [
   'fieldVPerM',

@@ -101,7 +101,7 @@ function logSlope(f: (x: number) => ModelResult | null, x: number, name: Quantit
  * Interprets one reading with one model: every quantity the geometry defines, a 95 %
  * interval on each, the interval method and the validity warnings.
  *
- * Formulas: see each model in core/physics/models (PHYSICS.md). Units: fieldVPerM V/m,
+ * Formulas: see each model in core/physics/models. Units: fieldVPerM V/m,
  * potentialV V, distanceM m, geometry SI; the response is SI with units in the names.
  * Reference: the model references; uncertainty after the GUM (JCGM 100:2008), first order.
  *

@@ -2,7 +2,7 @@
  * sweep(): readings of one object at three or more distances (measured from the
  * object's SURFACE) -> fall-off exponent, every candidate model fitted, ranked by
  * AICc, the chosen model with an interval on its charge, residuals and a conclusion
- * in plain words. Contract: issue 3 (POST /api/sweep); physics: PHYSICS.md "Sweep".
+ * in plain words. Contract: issue 3 (POST /api/sweep); fit by least squares on log|E|, ranked by AICc (Hurvich and Tsai, Biometrika 76, 1989).
  *
  * Fitting. Errors of a field meter are multiplicative, so every fit works on ln|E|.
  * Each model is |E| = A g(d + c) with A its amplitude (charge, line density, moment or
@@ -140,7 +140,7 @@ export function logLogExponent(readings: readonly SweepReading[]): { exponent: n
 }
 
 /**
- * The cheap linearisation for a fixed exponent m (PHYSICS.md): |E|^(-1/m) is linear in
+ * The cheap linearisation for a fixed exponent m: |E|^(-1/m) is linear in
  * the gap d, |E|^(-1/m) = s d + b. Point (m = 2): Q = 1 / (k s^2); line (m = 1):
  * lambda = 2 pi eps0 / s; dipole on axis (m = 3): p = 1 / (2 k s^3); in each case the
  * depth of the charge centre is c = b / s. Signs follow the readings.

@@ -5,7 +5,7 @@
  * hazardVerdicts() for the spot's area. Called by deriveReading (server and tablet
  * alike), so an estimate shown offline is the one the server answers.
  *
- * Rules (PHYSICS.md):
+ * Rules:
  * - distanceM is the reading's distance (the gap to the surface for sized objects,
  *   to the charge for point, dipole and image-charge models, as the API says);
  * - distance uncertainty: the reading's, else the spot's, else estimate()'s default;
@@ -111,7 +111,7 @@ export function estimateRequestFor(input: ReadingEstimateInput, spot: SpotEstima
 /**
  * The area as core/hazard sees it: dust from the zone (20, 21, 22); the site's dust MIE
  * (area.dustMieJ) when it gave one, else core/hazard uses the fine-dust lower bound of
- * 1 mJ (FACTS.md), the cautious choice.
+ * 1 mJ (Wikipedia "Static electricity", energies involved), the cautious choice.
  */
 export function hazardAreaOf(area: AreaHazardContext): HazardArea {
   const dust = area.zone === 20 || area.zone === 21 || area.zone === 22;

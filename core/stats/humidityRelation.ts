@@ -63,7 +63,7 @@ export interface HumidityRelationOptions {
  *
  * Reference: the log-linear (exponential) model is an empirical choice: body
  * voltages and surface charging change by an order of magnitude across the RH
- * range (design/FACTS.md, Humidity: 12 kV at 15 % RH vs 1.5 kV at 80 % RH), so
+ * range (Wikipedia "Static electricity": walking on vinyl, 12 kV at 15 % RH vs 1.5 kV at 80 % RH), so
  * the log of the field, not the field, is taken as linear in RH. The regression
  * and its t test: N. R. Draper and H. Smith (1998), Applied Regression Analysis,
  * 3rd ed., ch. 1 and 3.

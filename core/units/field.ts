@@ -6,8 +6,7 @@
  * Surface-voltage mode ('V', 'kV'): a field meter in this mode displays
  * V = E * dCal, where dCal is its calibrated distance, whatever distance it was
  * held at. So E = V / dCal. The display equals the object's potential only for a
- * large flat target with the meter as the nearest ground (see PHYSICS notes in
- * DEVELOPERS.md); we never treat it as one.
+ * large flat target with the meter as the nearest ground; we never treat it as one.
  */
 export const FIELD_UNITS = ['V/m', 'kV/m', 'V/cm', 'kV/cm', 'V/inch', 'kV/inch'] as const;
 export type FieldUnit = (typeof FIELD_UNITS)[number];

@@ -47,7 +47,7 @@ describe('bin/chargewalk.mjs (spawned with node)', () => {
     const p = run(['estimate'], JSON.stringify({ model: 'conductor', potentialV: 10000, geometry: { capacitanceF: 200e-12 } }));
     expect(p.status).toBe(0);
     const out = JSON.parse(p.stdout);
-    expect(out.chargeC).toBeCloseTo(2e-6, 15); // FACTS.md: 200 pF at 10 kV -> 2 uC
+    expect(out.chargeC).toBeCloseTo(2e-6, 15); // arithmetic: 200 pF at 10 kV -> 2 uC (NFPA 77 (2000) Table A.3.1.5 person)
     expect(out.energyJ).toBeCloseTo(0.01, 12); // and 10 mJ
   });
 

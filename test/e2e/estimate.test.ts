@@ -169,7 +169,7 @@ describe('charge estimates and sweeps on the tablet (issue 3)', () => {
     await expect.poll(text(page.locator('[data-testid=models-title]')), T).toBe('How estimates are made');
     await expect.poll(count(page.locator('.model-card')), T).toBe(12);
     await expect.poll(text(page.locator('.models-page')), T).toContain('web over a roller reads low');
-    // PHYSICS.md: the moving-web current with its worked example, the double layer, the bulk sphere, the plausibility limits
+    // The moving-web current with its worked example (arithmetic), the double layer, the bulk sphere, the plausibility limits
     await expect.poll(text(page.locator('[data-testid=models-web-current]')), T).toContain('5 µC/m² × 1.5 m × 4 m/s = 30 µA');
     await expect.poll(text(page.locator('[data-testid=models-web-current]')), T).toMatch(/double layer/);
     await expect.poll(text(page.locator('[data-model=bulk-cylinder]')), T).toContain('ρ·R/(3ε0)');
@@ -183,7 +183,7 @@ describe('charge estimates and sweeps on the tablet (issue 3)', () => {
     await picker.waitFor();
     const options = await picker.locator('option').allTextContents();
     expect(options.length).toBeGreaterThan(20);
-    // FACTS.md: MIE propane 0.25 mJ, NFPA 77 (2000) Table B.1; minimum ignition charge 70 nC (BGR 132 Annex G Table 14)
+    // MIE propane 0.25 mJ, NFPA 77 (2000) Table B.1; minimum ignition charge 70 nC (BGR 132 Annex G Table 14)
     expect(options.find((o) => o.startsWith('Propane'))).toMatch(/MIE 0\.25 mJ \(NFPA 77 \(2000\) Table B\.1\).*ignition charge 70 nC/);
     await picker.scrollIntoViewIfNeeded();
     await shots('setup-area-substance');

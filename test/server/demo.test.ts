@@ -109,7 +109,7 @@ describe('demo site', () => {
       expect(svg).not.toMatch(/<script|href=|on\w+=/i);
     }
   });
-  it('reads its isolated conductors (drum, operator) in surface-voltage mode, so the spark-energy check against the MIE is made (PHYSICS.md: W = C V^2 / 2)', async () => {
+  it('reads its isolated conductors (drum, operator) in surface-voltage mode, so the spark-energy check against the MIE is made (W = C V^2 / 2, e.g. Griffiths, Introduction to Electrodynamics, ch. 2)', async () => {
     for (const code of ['C-06', 'C-09', 'P-03']) {
       const id = setup.spots.find((s) => s.code === code)!.id;
       const r = (await call(srv.baseUrl, 'GET', `/api/spots/${id}/readings?limit=1`)).body.readings[0];

@@ -58,7 +58,7 @@ describe('POST /api/estimate', () => {
     expect(Array.isArray(r.body.warnings)).toBe(true);
   });
 
-  it('closed forms over HTTP (PHYSICS.md)', async () => {
+  it('closed forms over HTTP', async () => {
     // Point: Q = 4 pi eps0 r^2 E; common practice: ~10 nC a few cm away gives ~1e5 V/m.
     const p = await post('/api/estimate', REQUESTS.point);
     expect(p.body.chargeC).toBeCloseTo(4 * Math.PI * EPSILON_0 * 0.03 ** 2 * 1e5, 15);
@@ -67,7 +67,7 @@ describe('POST /api/estimate', () => {
     const [lo, hi] = p.body.interval.chargeC;
     expect(lo).toBeLessThan(p.body.chargeC);
     expect(hi).toBeGreaterThan(p.body.chargeC);
-    // Conductor: Q = C V, W = C V^2 / 2 (FACTS.md: 100 pF at 5 kV -> 0.5 uC, 1.25 mJ by arithmetic)
+    // Conductor: Q = C V, W = C V^2 / 2 (100 pF at 5 kV -> 0.5 uC, 1.25 mJ by arithmetic)
     const c = await post('/api/estimate', REQUESTS.conductor);
     expect(c.body.chargeC).toBeCloseTo(500e-9, 15);
     expect(c.body.energyJ).toBeCloseTo(1.25e-3, 12);
@@ -133,7 +133,7 @@ describe('POST /api/sweep', () => {
     const [lo, hi] = r.body.best.chargeInterval;
     expect(lo).toBeLessThanOrEqual(Q * 1.000001);
     expect(hi).toBeGreaterThanOrEqual(Q * 0.999999);
-    // Measured from the surface the apparent exponent is below 2 (PHYSICS.md "Sweep").
+    // Measured from the surface the apparent exponent is below 2 (a point charge behind the surface).
     expect(r.body.exponent).toBeGreaterThan(0.8);
     expect(r.body.exponent).toBeLessThan(2);
     expect(r.body.ranking.length).toBeGreaterThan(2);
@@ -169,7 +169,7 @@ describe('hazard tables', () => {
     expect(r.status).toBe(200);
     expect(r.body.substances).toEqual(JSON.parse(JSON.stringify(SUBSTANCES)));
     const propane = r.body.substances.find((s: { id: string }) => s.id === 'propane');
-    // FACTS.md: MIE propane 0.25 mJ, NFPA 77 (2000) Table B.1; minimum ignition charge 70 nC, BGR 132 Annex G Table 14
+    // MIE propane 0.25 mJ, NFPA 77 (2000) Table B.1; minimum ignition charge 70 nC, BGR 132 Annex G Table 14
     expect(propane.mieJ).toBeCloseTo(0.25e-3, 12);
     expect(propane.mieSource).toMatch(/NFPA 77/);
     expect(propane.minIgnitionChargeC).toBeCloseTo(70e-9, 15);

@@ -67,13 +67,13 @@ export function sheetFromField(args: { fieldVPerM: number; gapM: number; groundB
 
 /**
  * Charge current carried off a process by a moving charged web: I = sigma w v
- * (PHYSICS.md "Moving web"). It sizes a neutraliser (which must deliver the same
+ * (the charge a moving web carries off, as a current). It sizes a neutraliser (which must deliver the same
  * current of the opposite sign) and makes lines at different speeds comparable.
  * A web charged + on one face and - on the other (a double layer) reads near zero
  * on a field meter yet can discharge: its sigma, and so this current, is then not
  * what the meter sees.
  * Reference: conservation of charge (charge per unit area times area swept per
- * second); PHYSICS.md worked example 5 uC/m^2 on a 1.5 m web at 4 m/s = 30 uA.
+ * second); worked example (arithmetic): 5 uC/m^2 on a 1.5 m web at 4 m/s = 30 uA.
  * @param sigmaCPerM2 surface charge density, C/m^2 (signed)
  * @param widthM web width, m
  * @param speedMPerS line speed, m/s (0 gives 0: a stopped web carries no current)

@@ -127,34 +127,27 @@ export class PgStore implements Store {
   ) {}
 
   /** A write: one transaction holding the write lock, committed before this returns. */
-  private async write<T>(fn: (db: Db, now: string) => Promise<T>): Promise<T> {
-    let client: pg.PoolClient;
-    try {
-      client = await this.pool.connect();
-    } catch (e) {
-      throw mapPgError(e);
-    }
-    let broken = false;
-    try {
+  private write<T>(fn: (db: Db, now: string) => Promise<T>): Promise<T> {
+    return this.transaction(async (client) => {
       await client.query('BEGIN');
       await client.query('SELECT pg_advisory_xact_lock($1)', [WRITE_LOCK]);
-      const result = await fn(clientDb(client), nowIso());
-      await client.query('COMMIT');
-      return result;
-    } catch (e) {
-      try {
-        await client.query('ROLLBACK');
-      } catch {
-        broken = true;
-      }
-      throw mapPgError(e);
-    } finally {
-      client.release(broken);
-    }
+      return fn(clientDb(client), nowIso());
+    });
   }
 
   /** A read of several statements from one snapshot. */
-  private async read<T>(fn: (db: Db) => Promise<T>): Promise<T> {
+  private read<T>(fn: (db: Db) => Promise<T>): Promise<T> {
+    return this.transaction(async (client) => {
+      await client.query('BEGIN ISOLATION LEVEL REPEATABLE READ READ ONLY');
+      return fn(clientDb(client));
+    });
+  }
+
+  /**
+   * Runs `body` (which opens the transaction) on one pooled client and commits; on
+   * any error rolls back, drops a client that cannot roll back, and maps the error.
+   */
+  private async transaction<T>(body: (client: pg.PoolClient) => Promise<T>): Promise<T> {
     let client: pg.PoolClient;
     try {
       client = await this.pool.connect();
@@ -163,8 +156,7 @@ export class PgStore implements Store {
     }
     let broken = false;
     try {
-      await client.query('BEGIN ISOLATION LEVEL REPEATABLE READ READ ONLY');
-      const result = await fn(clientDb(client));
+      const result = await body(client);
       await client.query('COMMIT');
       return result;
     } catch (e) {

@@ -10,7 +10,7 @@
 import { fileURLToPath } from 'node:url';
 import type pg from 'pg';
 import { StoreStartupError } from '../errors';
-import { loadMigrations, type Migration } from '../sqlite/migrate';
+import { loadMigrations, verifyAppliedMigrations, type AppliedRow, type Migration } from '../sqlite/migrate';
 
 export const PG_MIGRATIONS_DIR = fileURLToPath(new URL('./migrations/', import.meta.url));
 
@@ -21,26 +21,11 @@ export function loadPgMigrations(): Migration[] {
 /** Key of the advisory lock held while migrating ("charg" in ASCII). */
 const MIGRATE_LOCK = 0x6368617267;
 
-const pad = (id: number) => String(id).padStart(4, '0');
 
-interface AppliedRow { id: number; name: string; checksum: string; applied_at: string }
 
 export async function checkPgMigrationHistory(client: pg.ClientBase, location: string, migrations: Migration[]): Promise<AppliedRow[]> {
   const applied = (await client.query<AppliedRow>('SELECT id, name, checksum, applied_at FROM schema_migrations ORDER BY id')).rows;
-  const known = new Map(migrations.map((m) => [m.id, m]));
-  for (const row of applied) {
-    const mig = known.get(row.id);
-    if (!mig) {
-      throw new StoreStartupError(
-        `${location} has migration ${pad(row.id)} (${row.name}, applied ${row.applied_at}) that this version of chargewalk does not know: `
-        + 'it was written by a newer version. Run that version, or restore a backup made with this one.');
-    }
-    if (mig.checksum !== row.checksum) {
-      throw new StoreStartupError(
-        `${location}: migration ${mig.name} differs from the one applied on ${row.applied_at} (checksum mismatch). `
-        + 'Applied migrations must never be edited; undo the edit and add a new numbered migration instead.');
-    }
-  }
+  verifyAppliedMigrations(applied, location, migrations);
   return applied;
 }
 

@@ -55,15 +55,19 @@ const pad = (id: number) => String(id).padStart(4, '0');
  * Checks the migrations recorded in a database against the ones this code ships:
  * an unknown id or a changed checksum throws StoreStartupError. Answers the rows.
  */
-export function checkMigrationHistory(db: Db, location: string, migrations: Migration[] = loadMigrations()): AppliedRow[] {
-  const applied = db.prepare('SELECT id, name, checksum, applied_at FROM schema_migrations ORDER BY id').all() as AppliedRow[];
+/**
+ * The rule both stores keep: every applied migration must be one this code knows,
+ * with the same checksum. Throws StoreStartupError naming the migration otherwise.
+ * `restoreHint` tells how to go back (SQLite: npm run restore; PostgreSQL: the dump).
+ */
+export function verifyAppliedMigrations(applied: readonly AppliedRow[], location: string, migrations: readonly Migration[], restoreHint = ''): void {
   const known = new Map(migrations.map((m) => [m.id, m]));
   for (const row of applied) {
     const mig = known.get(row.id);
     if (!mig) {
       throw new StoreStartupError(
         `${location} has migration ${pad(row.id)} (${row.name}, applied ${row.applied_at}) that this version of chargewalk does not know: `
-        + 'it was written by a newer version. Run that version, or restore a backup made with this one (npm run restore -- <file>).');
+        + `it was written by a newer version. Run that version, or restore a backup made with this one${restoreHint}.`);
     }
     if (mig.checksum !== row.checksum) {
       throw new StoreStartupError(
@@ -71,6 +75,11 @@ export function checkMigrationHistory(db: Db, location: string, migrations: Migr
         + 'Applied migrations must never be edited; undo the edit and add a new numbered migration instead.');
     }
   }
+}
+
+export function checkMigrationHistory(db: Db, location: string, migrations: Migration[] = loadMigrations()): AppliedRow[] {
+  const applied = db.prepare('SELECT id, name, checksum, applied_at FROM schema_migrations ORDER BY id').all() as AppliedRow[];
+  verifyAppliedMigrations(applied, location, migrations, ' (npm run restore -- <file>)');
   return applied;
 }
 

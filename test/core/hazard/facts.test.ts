@@ -1,4 +1,4 @@
-/** The facts table, the substance picker and the templates against FACTS.md, with the sources named there. */
+/** The facts table, the substance picker and the templates against their published sources, named beside each check. */
 import { describe, expect, it } from 'vitest';
 import { CDM_CLASSES, FACTS, HBM_CLASSES, TRANSFER_CHARGE_LIMIT, gasGroupForMie, sensitivityClass } from '../../../core/hazard/facts';
 import { SUBSTANCES, substanceById } from '../../../core/hazard/substances';
@@ -8,7 +8,7 @@ import { LimitRuleSchema } from '../../../core/schemas/domain';
 const REL = 1e-9;
 const close = (a: number, b: number) => expect(Math.abs(a - b) / Math.abs(b)).toBeLessThan(REL);
 
-describe('facts table (FACTS.md)', () => {
+describe('facts table', () => {
   it('every fact has a positive finite value, an SI unit and a source', () => {
     for (const [id, f] of Object.entries(FACTS)) {
       expect(Number.isFinite(f.value), id).toBe(true);
@@ -127,7 +127,7 @@ describe('limit templates', () => {
     expect(t.rules.find((r) => r.metric === 'surfaceVoltageV')?.alarm).toBe(35);
   });
 
-  it('hazardous zone 1 IIA: energy alarm at propane 0.25 mJ; person voltage alarm 1.58 kV (FACTS.md check value)', () => {
+  it('hazardous zone 1 IIA: energy alarm at propane 0.25 mJ; person voltage alarm 1.58 kV (arithmetic: V = sqrt(2 W / C), 200 pF, NFPA 77 Table A.3.1.5)', () => {
     const t = limitTemplate({ kind: 'hazardous', zone: 1, gasGroup: 'IIA' });
     close(t.rules.find((r) => r.metric === 'energyJ')?.alarm as number, 0.25e-3);
     expect(t.rules.find((r) => r.metric === 'bodyVoltageV')?.alarm).toBeCloseTo(1581.1, 1);

@@ -1,4 +1,4 @@
-/** Scenario tables for hazardVerdicts, thresholds from FACTS.md with their sources. */
+/** Scenario tables for hazardVerdicts, thresholds with their published sources. */
 import { describe, expect, it } from 'vitest';
 import { CAUTION, hazardVerdicts, resolveAtmosphere, type HazardInput, type Verdict } from '../../../core/hazard/verdicts';
 import { estimate } from '../../../core/physics/estimate';
@@ -23,7 +23,7 @@ describe('conductor spark energy against the MIE', () => {
   });
 
   it.each([
-    // [potential V, capacitance F, area, expected level]  FACTS.md check values
+    // [potential V, capacitance F, area, expected level]  check values: arithmetic on the cited capacitances and MIEs
     [1500, 200e-12, { kind: 'hazardous', zone: 1, gasGroup: 'IIA' }, 'ok'], // 0.225 mJ < 0.25 mJ
     [1600, 200e-12, { kind: 'hazardous', zone: 1, gasGroup: 'IIA' }, 'alarm'], // above 1.58 kV
     [7000, 10e-12, { kind: 'hazardous', zone: 1, substanceId: 'propane' }, 'ok'], // below 7.07 kV on 10 pF

@@ -116,7 +116,7 @@ describe('near and far limits against the point and sheet formulas', () => {
 
   it('isolated sheet is the large-rectangle limit', () => {
     expect(rel(sheetField(1e-6, 0.025, null), rectangleAxisField(1e-6, 1e4, 1e4, 0.025))).toBeLessThan(1e-5);
-    // three-plane: b = a gives 2 eps0 E; b >> a gives eps0 E (PHYSICS.md)
+    // three-plane: b = a gives 2 eps0 E; b >> a gives eps0 E (three-plane model; Gauss law, Griffiths ch. 2)
     expect(rel(sheetFromField({ fieldVPerM: 1e4, gapM: 0.02, groundBehindM: 0.02 }).surfaceChargeDensityCPerM2 as number, 2 * EPS0_REF * 1e4)).toBeLessThan(1e-12);
     expect(rel(sheetFromField({ fieldVPerM: 1e4, gapM: 0.02, groundBehindM: 1e6 }).surfaceChargeDensityCPerM2 as number, EPS0_REF * 1e4)).toBeLessThan(1e-7);
   });
@@ -195,7 +195,7 @@ describe('invariants', () => {
 });
 
 describe('capacitances and derived quantities', () => {
-  it('isolated sphere C = 4 pi eps0 a = 111 pF per metre of radius (FACTS.md, physics)', () => {
+  it('isolated sphere C = 4 pi eps0 a = 111 pF per metre of radius (physics: Griffiths, Introduction to Electrodynamics, ch. 2)', () => {
     expect(sphereCapacitance(1)).toBeCloseTo(111.265e-12, 15);
   });
 
@@ -220,8 +220,8 @@ describe('capacitances and derived quantities', () => {
     expect(rel(r.energyJ as number, (r.chargeC as number) ** 2 / (2 * 4 * Math.PI * EPS0_REF * 0.1))).toBeLessThan(1e-12);
   });
 
-  it('FACTS.md person and object check values (arithmetic on NFPA 77 (2000) Table A.3.1.5 capacitances)', () => {
-    // FACTS.md "People" check values.
+  it('person and object check values (arithmetic on NFPA 77 (2000) Table A.3.1.5 capacitances)', () => {
+    // People check values: arithmetic on NFPA 77 (2000) Table A.3.1.5 and TRBS 2131.
     expect(conductorFromPotential({ potentialV: 20e3, capacitanceF: 300e-12 }).energyJ).toBeCloseTo(60e-3, 12);
     expect(conductorFromPotential({ potentialV: 50e3, capacitanceF: 100e-12 }).energyJ).toBeCloseTo(125e-3, 12);
     const p = conductorFromPotential({ potentialV: 10e3, capacitanceF: 200e-12 });
@@ -239,7 +239,7 @@ describe('capacitances and derived quantities', () => {
   });
 
   it('common practice: about 10 nC seen a few centimetres away gives a field of order 1e5 V/m', () => {
-    // Source: trade rule of thumb (common practice), PHYSICS.md.
+    // Source: trade rule of thumb (common practice).
     const e = pointChargeField(10e-9, 0.03);
     expect(e).toBeGreaterThan(5e4);
     expect(e).toBeLessThan(2e5);

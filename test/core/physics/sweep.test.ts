@@ -1,7 +1,7 @@
 /**
  * sweep(): synthetic readings from each model (exact and with 5 % multiplicative noise
  * from a seeded mulberry32 PRNG) recover the model and its charge within the stated
- * interval; exponents for dipole / point / long line; the depth effect of PHYSICS.md;
+ * interval; exponents for dipole / point / long line; the depth effect of distances measured from the surface;
  * the log-log exponent against simple-statistics' linear regression; degenerate input.
  */
 import { describe, expect, it } from 'vitest';
@@ -94,7 +94,7 @@ describe('fall-off exponent', () => {
   });
 });
 
-describe('distances measured from the surface (PHYSICS.md)', () => {
+describe('distances measured from the surface', () => {
   const readings = [0.025, 0.0375, 0.05].map((d) => ({ distanceM: d, fieldVPerM: (K_REF * 1e-8) / (d + 0.05) ** 2 }));
   it('a point charge 5 cm behind the surface read at 25-50 mm looks flatter than 1/r^2 (about 1/r^0.84)', () => {
     const res = sweep({ readings, models: ['point'] });

@@ -1,5 +1,5 @@
 /**
- * The moving-web current I = sigma w v (PHYSICS.md "Moving web"): the worked example
+ * The moving-web current I = sigma w v (the charge a moving web carries off, as a current): the worked example
  * there (5 uC/m^2 on a 1.5 m web at 4 m/s is 30 uA), the same product computed with
  * the units of mathjs (a reference library from the registry, independent of our
  * unit code), and its chain with the sheet model.
@@ -10,7 +10,7 @@ import { sheetFromField, webChargeCurrentA } from '../../../core/physics/models'
 import { EPSILON_0 } from '../../../core/physics/constants';
 
 describe('moving web: I = sigma w v', () => {
-  it('PHYSICS.md worked example: 5 uC/m^2, 1.5 m wide, 4 m/s gives 30 uA', () => {
+  it('worked example (arithmetic): 5 uC/m^2, 1.5 m wide, 4 m/s gives 30 uA', () => {
     expect(webChargeCurrentA(5e-6, 1.5, 4)).toBeCloseTo(30e-6, 15);
   });
 

@@ -1,7 +1,7 @@
 // deriveReading with the spot's model and the area: the reading becomes an estimate
 // (core/physics estimate()) whose charge, surface charge density and energy join the
 // limit evaluation, plus hazard verdicts (core/hazard). Closed forms are checked
-// against PHYSICS.md; thresholds against FACTS.md with their sources.
+// against the closed forms; thresholds against their published sources.
 import { describe, expect, it } from 'vitest';
 import { EPSILON_0 } from '../../../core/physics/constants';
 import { estimate } from '../../../core/physics/estimate';
@@ -44,7 +44,7 @@ describe('deriveReading with the spot model (line: a roll)', () => {
   it('runs estimate() with the reading, the geometry and the meter accuracy', () => {
     const direct = estimate({ model: 'line', fieldVPerM: -20000, distanceM: 0.1, geometry: { radiusM: 0.35, lengthM: 1.6 }, meterAccuracyRel: 0.05, geometryFactor: 1 });
     expect(d.estimate).toEqual(direct);
-    // PHYSICS.md finite line: E = lambda/(2 pi eps0 rho) (L/2)/sqrt(rho^2 + (L/2)^2), rho = a + g = 0.45 m; Q = lambda L.
+    // Finite line (Griffiths, Introduction to Electrodynamics, Example 2.1): E = lambda/(2 pi eps0 rho) (L/2)/sqrt(rho^2 + (L/2)^2), rho = a + g = 0.45 m; Q = lambda L.
     const rho = 0.45; const half = 0.8;
     const lambda = -20000 * 2 * Math.PI * EPSILON_0 * rho * Math.sqrt(rho ** 2 + half ** 2) / half;
     expect(d.estimate!.chargeC!).toBeCloseTo(lambda * 1.6, 15);
@@ -94,7 +94,7 @@ describe('distance uncertainty, ground behind, meter', () => {
     const sheet = { model: 'sheet' as const, geometry: { widthM: 1.5, groundBehindM: 0.3 }, materialClass: 'insulator' };
     const withSpot = deriveReading(reading({ distance: { value: 5, unit: 'cm' } }), meter, [], { spot: sheet });
     const withReading = deriveReading(reading({ distance: { value: 5, unit: 'cm' }, groundBehind: { value: 2, unit: 'cm' } }), meter, [], { spot: sheet });
-    // PHYSICS.md three-plane model: sigma = eps0 E (a + b) / b
+    // Three-plane model (Gauss law between grounded planes): sigma = eps0 E (a + b) / b
     expect(withSpot.estimate!.surfaceChargeDensityCPerM2!).toBeCloseTo(EPSILON_0 * -20000 * (0.05 + 0.3) / 0.3, 18);
     expect(withReading.estimate!.surfaceChargeDensityCPerM2!).toBeCloseTo(EPSILON_0 * -20000 * (0.05 + 0.02) / 0.02, 18);
   });
@@ -104,7 +104,7 @@ describe('distance uncertainty, ground behind, meter', () => {
     const f1 = deriveReading(reading(), meter, [], { spot: point });
     const f2 = deriveReading(reading(), { ...meter, geometryFactor: 2 }, [], { spot: point });
     expect(f2.estimate!.chargeC! / f1.estimate!.chargeC!).toBeCloseTo(0.5, 12);
-    // PHYSICS.md point charge: Q = 4 pi eps0 r^2 E
+    // Point charge (Coulomb): Q = 4 pi eps0 r^2 E
     expect(f1.estimate!.chargeC!).toBeCloseTo(4 * Math.PI * EPSILON_0 * 0.01 * -20000, 18);
   });
 });
@@ -113,7 +113,7 @@ describe('conductor model', () => {
   const person = { model: 'conductor' as const, geometry: { capacitanceF: 200e-12 }, materialClass: 'person' };
   it('takes the surface-voltage display as the potential and says so', () => {
     const d = deriveReading(reading({ value: 2, unit: 'kV', polarity: '+' }), meter, [], { spot: person, area: { kind: 'general' } });
-    // FACTS.md people check values: 200 pF at 10 kV -> 2 uC, 10 mJ; so 2 kV -> 0.4 uC, 0.4 mJ (Q = C V, W = C V^2 / 2).
+    // People check values (arithmetic on NFPA 77 (2000) Table A.3.1.5): 200 pF at 10 kV -> 2 uC, 10 mJ; so 2 kV -> 0.4 uC, 0.4 mJ (Q = C V, W = C V^2 / 2).
     expect(d.estimate!.chargeC!).toBeCloseTo(400e-9, 15);
     expect(d.estimate!.energyJ!).toBeCloseTo(0.4e-3, 12);
     expect(d.estimate!.warnings).toContainEqual(SV_AS_POTENTIAL_WARNING);
@@ -155,7 +155,7 @@ describe('bad set-up never throws', () => {
 describe('areas', () => {
   it('a dust zone judges spark energy against the fine-dust lower bound (conservative) unless the site gave its dust MIE', () => {
     const drum = { model: 'conductor' as const, geometry: { capacitanceF: 100e-12 }, materialClass: 'conductor' };
-    // 100 pF at 5 kV: W = C V^2 / 2 = 1.25 mJ; fine dusts 1-50 mJ (FACTS.md: Wikipedia "Static electricity", energies involved)
+    // 100 pF at 5 kV: W = C V^2 / 2 = 1.25 mJ; fine dusts 1-50 mJ (Wikipedia "Static electricity", energies involved)
     const d = deriveReading(reading({ value: 5, unit: 'kV', polarity: '+' }), meter, [], { spot: drum, area: { kind: 'hazardous', zone: 21, gasGroup: null, substanceId: null, dustMieJ: null } });
     const spark = d.hazards.find((v) => v.check === 'spark-energy')!;
     expect(spark.compared?.threshold).toBeCloseTo(1e-3, 15);

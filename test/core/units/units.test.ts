@@ -48,7 +48,7 @@ describe('distance units against mathjs 15 units', () => {
   });
 });
 
-describe('surface-voltage mode: E = V / dCal (PHYSICS: meter display is field x calibrated distance)', () => {
+describe('surface-voltage mode: E = V / dCal (the display is field x calibrated distance)', () => {
   it('1 kV at a 1-inch calibrated distance is 39.37 kV/m whatever the distance held', () => {
     expect(surfaceVoltageToVoltsPerMetre(1, 'kV', 0.0254)).toBeCloseTo(mathUnit(1, 'kV').toNumber('V') / 0.0254, 9);
   });

@@ -2,7 +2,7 @@
  * The reads of the weekly review and the spot trend, and the kept weekly
  * aggregates (review_week_cache, migration 0004).
  *
- * Speed (ARCHITECTURE.md, bench/run.ts): a week of 500 spots is ~19k readings;
+ * Speed (bench/run.ts): a week of 500 spots is ~19k readings;
  * they come through readings_spot_time (spot_id, taken_at, ...) one spot at a
  * time. The weeks before (previous week, 8-week trend, 13-week humidity) are read
  * from the cache, filled once per complete week and dropped whenever a reading
